@@ -18,6 +18,13 @@ export interface RandomSource {
   chiSquare(degreesOfFreedom: number): number;
   /** Integer uniform on 0 … n − 1. */
   integer(n: number): number;
+  /**
+   * Fill `target` with uniforms on (0, 1) of 32-bit resolution, (k + 0.5)/2^32 from one MT19937 output k
+   * each: the resolution of R's Mersenne-Twister unif_rand and so of JAGS's base::Mersenne-Twister (from memory), for
+   * simulation loops that need millions of uniforms (the Bayesian view's Gibbs sampler); about twice as
+   * fast as uniform(), which spends two outputs on 53 bits. Draws from the same stream as the other methods.
+   */
+  fillUniform32(target: Float64Array): void;
   /** The seed this source started from. */
   readonly seed: number;
 }
@@ -87,5 +94,8 @@ export function createRandom(seed: number): RandomSource {
     gamma,
     chiSquare: (degreesOfFreedom: number) => 2 * gamma(degreesOfFreedom / 2),
     integer: (n: number) => Math.floor(next() * n),
+    fillUniform32: (target: Float64Array) => {
+      for (let i = 0; i < target.length; i++) target[i] = (generator() + 0.5) * 2.3283064365386963e-10;
+    },
   };
 }

@@ -1,0 +1,328 @@
+/**
+ * `npm run -s assess -- --input FILE.csv [--groups groups.json] [--oel N] [--bayes] [--seed N]`
+ *
+ * Reads shift results (CSV with the header `group,value`; `<0.05` is a non-detect with detection
+ * limit 0.05), assesses every exposure group with the classical engine (stats/assess-group.ts) and
+ * prints one JSON document with the fields of PRODUCT.md ("Command-line contracts"), at full
+ * precision. groups.json maps a group name to `{ "oel": N }` (optionally `"actionLevel": N`); --oel
+ * is the OEL of every group not in it. A group that cannot be assessed gets `error` and null
+ * figures; the others are still reported. Bad usage: message on stderr, exit code 2. An unreadable
+ * file or a malformed row: message naming the file, row and column on stderr, exit code 1.
+ */
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
+import Papa from 'papaparse';
+import { assessMany, DEFAULT_ASSESSMENT_SEED, type GroupAssessment, type NamedGroupInput } from '@stats/assess-group';
+import type { ExposureCategory, ShiftValue } from '@stats/types';
+import { startBayesBatch, type AssessBayesFigures } from './assess-bayes';
+
+export const usage = 'usage: npm run -s assess -- --input FILE.csv [--groups groups.json] [--oel N] [--bayes] [--seed N]';
+
+/** Where the command writes; tests pass their own. */
+export interface CliOutput {
+  stdout: (text: string) => void;
+  stderr: (text: string) => void;
+}
+
+const processOutput: CliOutput = {
+  stdout: (text) => process.stdout.write(text),
+  stderr: (text) => process.stderr.write(text),
+};
+
+/** A problem with the command line itself (exit code 2). */
+class UsageError extends Error {}
+/** A problem with an input file (exit code 1); the message names the file (and row and column). */
+class InputError extends Error {}
+
+const numberPattern = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+export type { AssessBayesFigures } from './assess-bayes';
+
+/** One group of the printed document; every figure is null when `error` is set. */
+export interface AssessGroupReport {
+  group: string;
+  n: number | null;
+  nCensored: number | null;
+  error: string | null;
+  gm: number | null;
+  gsd: number | null;
+  am: number | null;
+  sd: number | null;
+  p95: number | null;
+  utl95_95: number | null;
+  exceedanceFraction: number | null;
+  exceedanceFractionUcl95: number | null;
+  amMvue: number | null;
+  amUcl95: number | null;
+  shapiroWilk: { w: number; p: number } | null;
+  en689: { ur: number | null; ut: number | null; result: 'compliant' | 'non-compliant' | 'no-decision' } | null;
+  categoryByP95: ExposureCategory | null;
+  categoryByUtl: ExposureCategory | null;
+  /** Not in the PRODUCT.md list; added so that the record says how the figures were made. */
+  judgement: 'acceptable' | 'uncertain' | 'unacceptable' | null;
+  method: 'complete' | 'censored-mle' | 'ros' | null;
+  bayes: AssessBayesFigures | null;
+}
+
+/** A group as read from the CSV: its results, or the first bad value found with its row. */
+interface ParsedGroup {
+  name: string;
+  values: ShiftValue[];
+  valueError: string | null;
+}
+
+function parseValue(text: string, row: number): ShiftValue | string {
+  const where = `row ${row}, column "value"`;
+  const trimmed = text.trim();
+  if (trimmed === '') return `${where}: empty; expected a number > 0 or a non-detect such as <0.05`;
+  const nonDetect = trimmed.startsWith('<');
+  const numberText = nonDetect ? trimmed.slice(1).trim() : trimmed;
+  if (!numberPattern.test(numberText)) {
+    return nonDetect
+      ? `${where}: a non-detect needs its detection limit as a number, e.g. <0.05; got "${text}"`
+      : `${where}: expected a number > 0 or a non-detect such as <0.05, got "${text}"`;
+  }
+  const value = Number(numberText);
+  if (!(value > 0) || !Number.isFinite(value)) return `${where}: expected a number greater than 0, got "${text}"`;
+  return { value, nonDetect };
+}
+
+/** Parse the CSV text into groups in order of first appearance. Throws InputError for a malformed file. */
+export function parseAssessCsv(text: string, file: string): ParsedGroup[] {
+  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { header: false, skipEmptyLines: 'greedy', delimiter: ',' });
+  const fatal = parsed.errors.find((e) => e.type === 'Quotes');
+  if (fatal) throw new InputError(`${file}: row ${(fatal.row ?? 0) + 1}: ${fatal.message}`);
+  const rows = parsed.data;
+  if (rows.length === 0) throw new InputError(`${file}: the file is empty; expected the header group,value`);
+  const header = rows[0].map((cell) => cell.trim().toLowerCase());
+  const groupColumn = header.indexOf('group');
+  const valueColumn = header.indexOf('value');
+  if (groupColumn < 0 || valueColumn < 0) {
+    const missing = [groupColumn < 0 ? '"group"' : null, valueColumn < 0 ? '"value"' : null].filter(Boolean).join(' and ');
+    throw new InputError(`${file}: row 1 (header): no ${missing} column; expected the header group,value, got "${rows[0].join(',')}"`);
+  }
+  if (rows.length === 1) throw new InputError(`${file}: no data rows after the header`);
+  const groups = new Map<string, ParsedGroup>();
+  for (let i = 1; i < rows.length; i++) {
+    const row = i + 1;
+    const cells = rows[i];
+    if (cells.length !== header.length) {
+      throw new InputError(
+        `${file}: row ${row}: ${cells.length} field${cells.length === 1 ? '' : 's'} but the header has ${header.length}` +
+          (cells.length > header.length ? ' (a decimal comma? write 0.5, not 0,5)' : ''),
+      );
+    }
+    const name = cells[groupColumn].trim();
+    if (name === '') throw new InputError(`${file}: row ${row}, column "group": empty group name`);
+    let group = groups.get(name);
+    if (!group) {
+      group = { name, values: [], valueError: null };
+      groups.set(name, group);
+    }
+    const value = parseValue(cells[valueColumn], row);
+    if (typeof value === 'string') group.valueError ??= value;
+    else group.values.push(value);
+  }
+  return [...groups.values()];
+}
+
+interface GroupLimits {
+  oel: number;
+  actionLevel?: number;
+}
+
+/** Read groups.json: `{ "<group>": { "oel": N, "actionLevel"?: N } }`. */
+export function parseGroupsJson(text: string, file: string): Map<string, GroupLimits> {
+  let data: unknown;
+  try {
+    data = JSON.parse(text);
+  } catch (error) {
+    throw new InputError(`${file}: not valid JSON (${(error as Error).message})`);
+  }
+  if (typeof data !== 'object' || data === null || Array.isArray(data)) {
+    throw new InputError(`${file}: expected an object mapping each group to {"oel": N}`);
+  }
+  const limits = new Map<string, GroupLimits>();
+  for (const [group, entry] of Object.entries(data as Record<string, unknown>)) {
+    if (typeof entry !== 'object' || entry === null || Array.isArray(entry)) {
+      throw new InputError(`${file}: group "${group}": expected an object {"oel": N}`);
+    }
+    const { oel, actionLevel } = entry as Record<string, unknown>;
+    if (typeof oel !== 'number' || !Number.isFinite(oel) || oel <= 0) {
+      throw new InputError(`${file}: group "${group}", field "oel": expected a number > 0, got ${JSON.stringify(oel)}`);
+    }
+    if (actionLevel !== undefined && (typeof actionLevel !== 'number' || !Number.isFinite(actionLevel) || actionLevel <= 0)) {
+      throw new InputError(`${file}: group "${group}", field "actionLevel": expected a number > 0, got ${JSON.stringify(actionLevel)}`);
+    }
+    limits.set(group, { oel, ...(actionLevel === undefined ? {} : { actionLevel: actionLevel as number }) });
+  }
+  return limits;
+}
+
+function readText(file: string, what: string): string {
+  try {
+    return readFileSync(file, 'utf8');
+  } catch (error) {
+    throw new InputError(`${file}: cannot read the ${what} (${(error as NodeJS.ErrnoException).code ?? String(error)})`);
+  }
+}
+
+function errorReport(group: string, error: string): AssessGroupReport {
+  return {
+    group,
+    n: null,
+    nCensored: null,
+    error,
+    gm: null,
+    gsd: null,
+    am: null,
+    sd: null,
+    p95: null,
+    utl95_95: null,
+    exceedanceFraction: null,
+    exceedanceFractionUcl95: null,
+    amMvue: null,
+    amUcl95: null,
+    shapiroWilk: null,
+    en689: null,
+    categoryByP95: null,
+    categoryByUtl: null,
+    judgement: null,
+    method: null,
+    bayes: null,
+  };
+}
+
+function groupReport(group: string, assessment: GroupAssessment, bayes: AssessBayesFigures | null): AssessGroupReport {
+  return {
+    group,
+    n: assessment.n,
+    nCensored: assessment.nonDetects,
+    error: null,
+    gm: assessment.gm,
+    gsd: assessment.gsd,
+    am: assessment.am,
+    sd: assessment.sd,
+    p95: assessment.p95,
+    utl95_95: assessment.utl95_95,
+    exceedanceFraction: assessment.exceedanceFraction,
+    exceedanceFractionUcl95: assessment.exceedanceFractionUcl95,
+    amMvue: assessment.amMvue,
+    amUcl95: assessment.amUcl95,
+    shapiroWilk: assessment.fitCheck.shapiroWilkLog,
+    en689: { ur: assessment.en689.ur, ut: assessment.en689.ut, result: assessment.en689.result },
+    categoryByP95: assessment.categoryByP95,
+    categoryByUtl: assessment.categoryByUtl,
+    judgement: assessment.judgement,
+    method: assessment.fit.method,
+    bayes,
+  };
+}
+
+export interface AssessOptions {
+  oel?: number;
+  groupLimits: Map<string, GroupLimits>;
+  bayes: boolean;
+  seed: number;
+  /** Share the Bayesian view among worker threads (the command run directly); in-process otherwise. */
+  bayesWorkers?: boolean;
+}
+
+/** Assess parsed groups; a group that cannot be assessed gets its error and null figures. */
+export function assessParsedGroups(groups: readonly ParsedGroup[], options: AssessOptions): AssessGroupReport[] {
+  const reports = new Map<string, AssessGroupReport>();
+  const inputs: NamedGroupInput[] = [];
+  for (const group of groups) {
+    if (group.valueError !== null) {
+      reports.set(group.name, errorReport(group.name, group.valueError));
+      continue;
+    }
+    const limits = options.groupLimits.get(group.name) ?? (options.oel === undefined ? undefined : { oel: options.oel });
+    if (!limits) {
+      reports.set(group.name, errorReport(group.name, `no OEL for group "${group.name}": give --oel or an entry in the groups file`));
+      continue;
+    }
+    inputs.push({ group: group.name, values: group.values, ...limits, seed: options.seed });
+  }
+  // --bayes (assess-bayes.ts): started before the classical figures so worker threads run alongside them.
+  const bayesIndex = new Map(inputs.map((input, index) => [input.group, index]));
+  const bayesBatch = options.bayes
+    ? startBayesBatch(inputs.map((input) => ({ values: input.values, oel: input.oel, seed: options.seed })), options.bayesWorkers === true)
+    : null;
+  for (const result of assessMany(inputs)) {
+    if (result.error !== null) {
+      // The engine names itself in its messages; the command reports the rule alone.
+      reports.set(result.group, errorReport(result.group, result.error.replace(/^assessGroup: /, "")));
+    } else {
+      const bayes = bayesBatch ? bayesBatch.take(bayesIndex.get(result.group) as number) : null;
+      reports.set(result.group, groupReport(result.group, result.assessment, bayes));
+    }
+  }
+  return groups.map((group) => reports.get(group.name) as AssessGroupReport);
+}
+
+function numberOption(name: string, text: string | undefined, check: (value: number) => boolean, rule: string): number | undefined {
+  if (text === undefined) return undefined;
+  const value = Number(text);
+  if (!numberPattern.test(text.trim()) || !check(value)) throw new UsageError(`--${name} must be ${rule}, got "${text}"`);
+  return value;
+}
+
+/** Run the command with `argv` (arguments after the script name); returns the exit code. */
+export function main(argv: readonly string[], output: CliOutput = processOutput, options: { bayesWorkers?: boolean } = {}): number {
+  try {
+    let values: Record<string, string | boolean | undefined>;
+    try {
+      ({ values } = parseArgs({
+        args: [...argv],
+        strict: true,
+        allowPositionals: false,
+        options: {
+          input: { type: 'string' },
+          groups: { type: 'string' },
+          oel: { type: 'string' },
+          bayes: { type: 'boolean' },
+          seed: { type: 'string' },
+          help: { type: 'boolean', short: 'h' },
+        },
+      }));
+    } catch (error) {
+      throw new UsageError((error as Error).message);
+    }
+    if (values.help) {
+      output.stdout(`${usage}\n`);
+      return 0;
+    }
+    const input = values.input as string | undefined;
+    if (!input) throw new UsageError('--input FILE.csv is required');
+    const oel = numberOption('oel', values.oel as string | undefined, (v) => v > 0 && Number.isFinite(v), 'a number greater than 0');
+    const seed =
+      numberOption('seed', values.seed as string | undefined, (v) => Number.isInteger(v) && v >= 1 && v <= 4294967295, 'an integer from 1 to 4294967295') ??
+      DEFAULT_ASSESSMENT_SEED;
+    const groupsFile = values.groups as string | undefined;
+    const groupLimits = groupsFile === undefined ? new Map<string, GroupLimits>() : parseGroupsJson(readText(groupsFile, 'groups file'), groupsFile);
+    if (groupsFile === undefined && oel === undefined) throw new UsageError('give --oel N, --groups groups.json, or both');
+
+    const groups = parseAssessCsv(readText(input, 'results file'), input);
+    const bayes = values.bayes === true;
+    const reports = assessParsedGroups(groups, { oel, groupLimits, bayes, seed, bayesWorkers: options.bayesWorkers });
+    output.stdout(`${JSON.stringify({ groups: reports }, null, 2)}\n`);
+    return 0;
+  } catch (error) {
+    if (error instanceof UsageError) {
+      output.stderr(`assess: ${error.message}\n${usage}\n`);
+      return 2;
+    }
+    if (error instanceof InputError) {
+      output.stderr(`assess: ${error.message}\n`);
+      return 1;
+    }
+    output.stderr(`assess: unexpected error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
+    return 1;
+  }
+}
+
+const invokedDirectly = process.argv[1] !== undefined && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
+if (invokedDirectly) process.exitCode = main(process.argv.slice(2), processOutput, { bayesWorkers: true });

@@ -18,25 +18,16 @@ import { bayesianView } from '../../stats/bayes-view';
 import { samplePlanner } from '../../stats/sample-planner';
 import { createRandom } from '../../stats/random';
 import type { ShiftValue } from '../../stats/types';
-import { medianMs, type BenchModule, type BenchRow } from './types';
+import { medianMs, type BenchModule, type BenchRow, cpuMsPerRun, loadNote } from './types';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const root = path.resolve(here, '../..');
-const load = () => `load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} CPUs`;
-
 /** n lognormal results with the lowest 30 % reported as non-detects at one detection limit. */
 function censoredGroup(seed: number, n = 30): ShiftValue[] {
   const random = createRandom(seed);
   const values = Array.from({ length: n }, () => Number(Math.exp(Math.log(0.1) + 0.8 * random.normal()).toPrecision(4)));
   const limit = [...values].sort((a, b) => a - b)[Math.round(0.3 * n)];
   return values.map((value) => (value < limit ? { value: limit, nonDetect: true } : { value, nonDetect: false }));
-}
-
-function cpuMsPerRun(repeats: number, body: () => unknown): number {
-  const start = process.cpuUsage();
-  for (let i = 0; i < repeats; i++) body();
-  const used = process.cpuUsage(start);
-  return (used.user + used.system) / 1000 / repeats;
 }
 
 export const run: BenchModule['run'] = async () => {
@@ -52,7 +43,7 @@ export const run: BenchModule['run'] = async () => {
     value: samplerMs,
     unit: 'ms',
     target: 100,
-    note: `median of 15; CPU ${cpuMsPerRun(5, () => sampleLognormalPosterior(data, { settings: { seed: seed++ } })).toFixed(0)} ms/run; ${load()}`,
+    note: `median of 15; CPU ${cpuMsPerRun(5, () => sampleLognormalPosterior(data, { settings: { seed: seed++ } })).toFixed(0)} ms/run; ${loadNote()}`,
   });
 
   const view = bayesianView(data, { oel: 1 });
@@ -63,15 +54,15 @@ export const run: BenchModule['run'] = async () => {
     value: viewMs,
     unit: 'ms',
     target: 100,
-    note: `median of 15; CPU ${cpuMsPerRun(5, () => bayesianView(data, { oel: 1, settings: { seed: seed++ } })).toFixed(0)} ms/run; R-hat μ ${view.diagnostics.rHat.mu.toFixed(4)}, σ ${view.diagnostics.rHat.sigma.toFixed(4)}; ESS μ ${Math.round(view.diagnostics.effectiveSampleSize.mu)}, σ ${Math.round(view.diagnostics.effectiveSampleSize.sigma)}; ${load()}`,
+    note: `median of 15; CPU ${cpuMsPerRun(5, () => bayesianView(data, { oel: 1, settings: { seed: seed++ } })).toFixed(0)} ms/run; R-hat μ ${view.diagnostics.rHat.mu.toFixed(4)}, σ ${view.diagnostics.rHat.sigma.toFixed(4)}; ESS μ ${Math.round(view.diagnostics.effectiveSampleSize.mu)}, σ ${Math.round(view.diagnostics.effectiveSampleSize.sigma)}; ${loadNote()}`,
   });
 
   const uncertain: ShiftValue[] = [0.12, 0.2, 0.09, 0.3, 0.16].map((value) => ({ value, nonDetect: false }));
   const plannerMs = await medianMs(5, () => samplePlanner(uncertain, { oel: 1, seed: seed++ }), 1);
-  rows.push({ suite: 'bayes', name: 'Sample planner, k = 1..12, 2,000 futures (n 5, complete data)', value: plannerMs / 1000, unit: 's', target: 2, note: `median of 5; ${load()}` });
+  rows.push({ suite: 'bayes', name: 'Sample planner, k = 1..12, 2,000 futures (n 5, complete data)', value: plannerMs / 1000, unit: 's', target: 2, note: `median of 5; ${loadNote()}` });
   const censoredSmall = censoredGroup(2, 10);
   const plannerCensoredMs = await medianMs(5, () => samplePlanner(censoredSmall, { oel: 0.5, seed: seed++ }), 1);
-  rows.push({ suite: 'bayes', name: 'Sample planner, k = 1..12, 2,000 futures (n 10, 3 non-detects)', value: plannerCensoredMs / 1000, unit: 's', target: 2, note: `median of 5; ${load()}` });
+  rows.push({ suite: 'bayes', name: 'Sample planner, k = 1..12, 2,000 futures (n 10, 3 non-detects)', value: plannerCensoredMs / 1000, unit: 's', target: 2, note: `median of 5; ${loadNote()}` });
 
   // 20 groups through the command, process start included.
   const folder = mkdtempSync(path.join(os.tmpdir(), 'bayes-bench-'));
@@ -92,7 +83,7 @@ export const run: BenchModule['run'] = async () => {
       value: cliMs / 1000,
       unit: 's',
       target: 3,
-      note: `median of 3; ${filled}/20 groups with bayes; ${load()}`,
+      note: `median of 3; ${filled}/20 groups with bayes; ${loadNote()}`,
     });
   } finally {
     rmSync(folder, { recursive: true, force: true });

@@ -11,7 +11,7 @@ import { fileURLToPath } from 'node:url';
 import { analyzeNoiseLog, analyzePreparedNoiseLog, prepareNoiseAnalysis } from '../../stats/noise-analyze';
 import { generateNoiseDemoLog } from '../../stats/noise-demo';
 import { parseNoiseLog } from '../../stats/noise-log-parse';
-import { medianMs, type BenchModule, type BenchRow } from './types';
+import { medianMs, type BenchModule, type BenchRow, cpuMsPerRun, loadNote } from './types';
 
 const megabytes = (bytes: number) => bytes / (1024 * 1024);
 
@@ -20,15 +20,6 @@ function parseAndAnalyze(text: string) {
 }
 
 /** CPU time per run in ms (user + system): less disturbed than wall time when other work shares the machine. */
-function cpuMsPerRun(repeats: number, body: () => unknown): number {
-  const start = process.cpuUsage();
-  for (let i = 0; i < repeats; i++) body();
-  const used = process.cpuUsage(start);
-  return (used.user + used.system) / 1000 / repeats;
-}
-
-const load = () => `load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} CPUs`;
-
 export const run: BenchModule['run'] = async () => {
   const rows: BenchRow[] = [];
   const twelve = generateNoiseDemoLog({ seed: 12, hours: 12, benchMinutes: 30, knockCount: 5 }).text;
@@ -41,7 +32,7 @@ export const run: BenchModule['run'] = async () => {
     value: twelveMs,
     unit: 'ms',
     target: 150,
-    note: `${(twelve.length / 1e6).toFixed(1)} MB of text, median of 15; CPU ${cpuMsPerRun(5, () => parseAndAnalyze(twelve)).toFixed(0)} ms/run; ${load()}`,
+    note: `${(twelve.length / 1e6).toFixed(1)} MB of text, median of 15; CPU ${cpuMsPerRun(5, () => parseAndAnalyze(twelve)).toFixed(0)} ms/run; ${loadNote()}`,
   });
 
   const fortyMs = await medianMs(7, () => parseAndAnalyze(forty), 2);
@@ -51,7 +42,7 @@ export const run: BenchModule['run'] = async () => {
     value: fortyMs / 1000,
     unit: 's',
     target: 0.5,
-    note: `${(forty.length / 1e6).toFixed(1)} MB of text, median of 7; CPU ${cpuMsPerRun(3, () => parseAndAnalyze(forty)).toFixed(0)} ms/run; ${load()}`,
+    note: `${(forty.length / 1e6).toFixed(1)} MB of text, median of 7; CPU ${cpuMsPerRun(3, () => parseAndAnalyze(forty)).toFixed(0)} ms/run; ${loadNote()}`,
   });
 
   // Peak memory of one 40 h run, measured in a fresh child process so that the generator and the

@@ -3,12 +3,11 @@
  * (censoredLimits, 2,000 bootstrap replicates) for one group. Target from the brief for this work:
  * the whole censored report for n = 30 well under 100 ms. Data come from a fixed seed (not timed).
  */
-import os from 'node:os';
 import { censoredLimits, fitWithNondetects } from '../../stats/nondetects';
 import { createRandom } from '../../stats/random';
 import { normalQuantile } from '../../stats/normal-distribution';
 import type { ShiftValue } from '../../stats/types';
-import { medianMs, type BenchModule, type BenchRow } from './types';
+import { medianMs, type BenchModule, type BenchRow, loadNote } from './types';
 
 /** n lognormal results (GM 0.1, GSD 2.5) with one detection limit at the true 30th percentile. */
 function censoredGroup(n: number, seed: number): ShiftValue[] {
@@ -27,8 +26,6 @@ function report(values: readonly ShiftValue[]) {
   return censoredLimits(values, fit, 1, { seed: 42 });
 }
 
-const load = () => `load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} CPUs`;
-
 export const run: BenchModule['run'] = async () => {
   const rows: BenchRow[] = [];
   for (const [n, target] of [
@@ -45,7 +42,7 @@ export const run: BenchModule['run'] = async () => {
       value: await medianMs(15, () => report(values)),
       unit: 'ms',
       target,
-      note: load(),
+      note: loadNote(),
     });
   }
   return rows;

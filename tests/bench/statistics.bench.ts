@@ -15,9 +15,7 @@ import { fileURLToPath } from 'node:url';
 import { assessGroup } from '../../stats/assess-group';
 import { createRandom } from '../../stats/random';
 import type { ShiftValue } from '../../stats/types';
-import { medianMs, type BenchModule, type BenchRow } from './types';
-
-const load = () => `load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} CPUs`;
+import { medianMs, type BenchModule, type BenchRow, cpuMsPerRun, loadNote } from './types';
 
 /** `count` seeded lognormal groups of `n` results (GM 0.2, GSD 2.5, every value detected). */
 function groups(count: number, n: number, seed: number): ShiftValue[][] {
@@ -28,13 +26,6 @@ function groups(count: number, n: number, seed: number): ShiftValue[][] {
 }
 
 /** CPU time per run in ms (user + system): less disturbed than wall time when other work shares the machine. */
-function cpuMsPerRun(repeats: number, body: () => unknown): number {
-  const start = process.cpuUsage();
-  for (let i = 0; i < repeats; i++) body();
-  const used = process.cpuUsage(start);
-  return (used.user + used.system) / 1000 / repeats;
-}
-
 export const run: BenchModule['run'] = async () => {
   const rows: BenchRow[] = [];
   for (const n of [6, 30, 300]) {
@@ -50,7 +41,7 @@ export const run: BenchModule['run'] = async () => {
       value: ms,
       unit: 'ms',
       ...(n === 30 ? { target: 1 } : {}),
-      note: `median of ${repeats} over 50 seeded groups; CPU ${cpuMsPerRun(50, report).toFixed(3)} ms/run; ${load()}`,
+      note: `median of ${repeats} over 50 seeded groups; CPU ${cpuMsPerRun(50, report).toFixed(3)} ms/run; ${loadNote()}`,
     });
   }
 
@@ -80,7 +71,7 @@ export const run: BenchModule['run'] = async () => {
       value: seconds,
       unit: 's',
       target: 10,
-      note: `100,000 rows, ${(child.stdout.length / 1e6).toFixed(1)} MB of JSON out; includes tsx start-up; ${load()}`,
+      note: `100,000 rows, ${(child.stdout.length / 1e6).toFixed(1)} MB of JSON out; includes tsx start-up; ${loadNote()}`,
     });
   } finally {
     rmSync(folder, { recursive: true, force: true });

@@ -1,3 +1,5 @@
+import os from 'node:os';
+
 /** One line of the benchmark table printed by `npm run bench` and written to bench-results/latest.json. */
 export interface BenchRow {
   suite: 'statistics' | 'bayes' | 'noise' | 'api' | 'bundle' | string;
@@ -26,4 +28,17 @@ export async function medianMs(repeats: number, body: () => unknown | Promise<un
   times.sort((a, b) => a - b);
   const mid = Math.floor(times.length / 2);
   return times.length % 2 ? times[mid] : (times[mid - 1] + times[mid]) / 2;
+}
+
+/** CPU time (user + system) per run in milliseconds: steadier than wall time on a shared machine. */
+export function cpuMsPerRun(repeats: number, body: () => unknown): number {
+  const start = process.cpuUsage();
+  for (let i = 0; i < repeats; i++) body();
+  const used = process.cpuUsage(start);
+  return (used.user + used.system) / 1000 / repeats;
+}
+
+/** The machine's one-minute load, for the note of a row measured while others may be running. */
+export function loadNote(): string {
+  return `load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} CPUs`;
 }

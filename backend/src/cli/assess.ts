@@ -9,34 +9,17 @@
  * figures; the others are still reported. Bad usage: message on stderr, exit code 2. An unreadable
  * file or a malformed row: message naming the file, row and column on stderr, exit code 1.
  */
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import Papa from 'papaparse';
 import { assessMany, DEFAULT_ASSESSMENT_SEED, type GroupAssessment, type NamedGroupInput } from '@stats/assess-group';
 import type { ExposureCategory, ShiftValue } from '@stats/types';
 import { startBayesBatch, type AssessBayesFigures } from './assess-bayes';
+import { InputError, isInvokedDirectly, numberOption, parseJsonFile, processOutput, readTextFile, runCommand, UsageError, type CliOutput } from './cli-support';
+
+export type { CliOutput } from './cli-support';
+const numberPattern = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 export const usage = 'usage: npm run -s assess -- --input FILE.csv [--groups groups.json] [--oel N] [--bayes] [--seed N]';
-
-/** Where the command writes; tests pass their own. */
-export interface CliOutput {
-  stdout: (text: string) => void;
-  stderr: (text: string) => void;
-}
-
-const processOutput: CliOutput = {
-  stdout: (text) => process.stdout.write(text),
-  stderr: (text) => process.stderr.write(text),
-};
-
-/** A problem with the command line itself (exit code 2). */
-class UsageError extends Error {}
-/** A problem with an input file (exit code 1); the message names the file (and row and column). */
-class InputError extends Error {}
-
-const numberPattern = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 export type { AssessBayesFigures } from './assess-bayes';
 
@@ -135,12 +118,7 @@ interface GroupLimits {
 
 /** Read groups.json: `{ "<group>": { "oel": N, "actionLevel"?: N } }`. */
 export function parseGroupsJson(text: string, file: string): Map<string, GroupLimits> {
-  let data: unknown;
-  try {
-    data = JSON.parse(text);
-  } catch (error) {
-    throw new InputError(`${file}: not valid JSON (${(error as Error).message})`);
-  }
+  const data = parseJsonFile(text, file);
   if (typeof data !== 'object' || data === null || Array.isArray(data)) {
     throw new InputError(`${file}: expected an object mapping each group to {"oel": N}`);
   }
@@ -159,14 +137,6 @@ export function parseGroupsJson(text: string, file: string): Map<string, GroupLi
     limits.set(group, { oel, ...(actionLevel === undefined ? {} : { actionLevel: actionLevel as number }) });
   }
   return limits;
-}
-
-function readText(file: string, what: string): string {
-  try {
-    return readFileSync(file, 'utf8');
-  } catch (error) {
-    throw new InputError(`${file}: cannot read the ${what} (${(error as NodeJS.ErrnoException).code ?? String(error)})`);
-  }
 }
 
 function errorReport(group: string, error: string): AssessGroupReport {
@@ -263,16 +233,9 @@ export function assessParsedGroups(groups: readonly ParsedGroup[], options: Asse
   return groups.map((group) => reports.get(group.name) as AssessGroupReport);
 }
 
-function numberOption(name: string, text: string | undefined, check: (value: number) => boolean, rule: string): number | undefined {
-  if (text === undefined) return undefined;
-  const value = Number(text);
-  if (!numberPattern.test(text.trim()) || !check(value)) throw new UsageError(`--${name} must be ${rule}, got "${text}"`);
-  return value;
-}
-
 /** Run the command with `argv` (arguments after the script name); returns the exit code. */
 export function main(argv: readonly string[], output: CliOutput = processOutput, options: { bayesWorkers?: boolean } = {}): number {
-  try {
+  return runCommand('assess', usage, output, () => {
     let values: Record<string, string | boolean | undefined>;
     try {
       ({ values } = parseArgs({
@@ -302,27 +265,15 @@ export function main(argv: readonly string[], output: CliOutput = processOutput,
       numberOption('seed', values.seed as string | undefined, (v) => Number.isInteger(v) && v >= 1 && v <= 4294967295, 'an integer from 1 to 4294967295') ??
       DEFAULT_ASSESSMENT_SEED;
     const groupsFile = values.groups as string | undefined;
-    const groupLimits = groupsFile === undefined ? new Map<string, GroupLimits>() : parseGroupsJson(readText(groupsFile, 'groups file'), groupsFile);
+    const groupLimits = groupsFile === undefined ? new Map<string, GroupLimits>() : parseGroupsJson(readTextFile(groupsFile, 'groups file'), groupsFile);
     if (groupsFile === undefined && oel === undefined) throw new UsageError('give --oel N, --groups groups.json, or both');
 
-    const groups = parseAssessCsv(readText(input, 'results file'), input);
+    const groups = parseAssessCsv(readTextFile(input, 'results file'), input);
     const bayes = values.bayes === true;
     const reports = assessParsedGroups(groups, { oel, groupLimits, bayes, seed, bayesWorkers: options.bayesWorkers });
     output.stdout(`${JSON.stringify({ groups: reports }, null, 2)}\n`);
     return 0;
-  } catch (error) {
-    if (error instanceof UsageError) {
-      output.stderr(`assess: ${error.message}\n${usage}\n`);
-      return 2;
-    }
-    if (error instanceof InputError) {
-      output.stderr(`assess: ${error.message}\n`);
-      return 1;
-    }
-    output.stderr(`assess: unexpected error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
-    return 1;
-  }
+  });
 }
 
-const invokedDirectly = process.argv[1] !== undefined && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
-if (invokedDirectly) process.exitCode = main(process.argv.slice(2), processOutput, { bayesWorkers: true });
+if (isInvokedDirectly(import.meta.url)) process.exitCode = main(process.argv.slice(2), processOutput, { bayesWorkers: true });

@@ -8,58 +8,19 @@
  * bad files, 2 for bad usage.
  */
 import { readFileSync, statSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { analyzeNoiseLog, noiseCliReport } from '@stats/noise-analyze';
 import type { NoiseMaskSpan } from '@stats/noise-exposure';
 import { defaultNoiseLogMaxBytes } from '@stats/noise-log';
 import { checkNoiseLogSize, decodeNoiseLogBytes, NoiseLogError, parseNoiseLog } from '@stats/noise-log-parse';
 import type { NoiseSettings } from '@stats/noise-settings';
+import { InputError, isInvokedDirectly, numberOption, parseJsonFile, processOutput, readTextFile, runCommand, UsageError, type CliOutput } from './cli-support';
 
 export const usage =
   'usage: npm run -s noise -- --input LOG.csv [--masks masks.json] [--shift-hours H] [--still-minutes M] [--knock-mg G]';
 
-/** Where the command writes; tests pass their own. */
-export interface CliOutput {
-  stdout: (text: string) => void;
-  stderr: (text: string) => void;
-}
-
-const processOutput: CliOutput = {
-  stdout: (text) => process.stdout.write(text),
-  stderr: (text) => process.stderr.write(text),
-};
-
-/** A problem with the command line itself (exit code 2). */
-class UsageError extends Error {}
-/** A problem with an input file (exit code 1); the message already names the file. */
-class InputError extends Error {}
-
-const decimalPattern = /^[+-]?(?:\d+\.?\d*|\.\d+)$/;
-
-function numberOption(name: string, text: string | undefined, check: (value: number) => boolean, rule: string): number | undefined {
-  if (text === undefined) return undefined;
-  const value = Number(text);
-  if (!decimalPattern.test(text.trim()) || !check(value)) {
-    throw new UsageError(`--${name} must be ${rule}, got "${text}"`);
-  }
-  return value;
-}
-
 function readMasks(file: string): NoiseMaskSpan[] {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (error) {
-    throw new InputError(`${file}: cannot read the masks file (${(error as NodeJS.ErrnoException).code ?? String(error)})`);
-  }
-  let data: unknown;
-  try {
-    data = JSON.parse(text);
-  } catch (error) {
-    throw new InputError(`${file}: not valid JSON (${(error as Error).message})`);
-  }
+  const data = parseJsonFile(readTextFile(file, 'masks file'), file);
   if (!Array.isArray(data)) throw new InputError(`${file}: expected a JSON array of {"startS","endS"} objects`);
   return data.map((entry: unknown, index) => {
     const where = `${file}: entry ${index + 1}`;
@@ -101,7 +62,7 @@ function readLog(file: string) {
 
 /** Run the command with `argv` (arguments after the script name); returns the exit code. */
 export function main(argv: readonly string[], output: CliOutput = processOutput): number {
-  try {
+  return runCommand('noise', usage, output, () => {
     let values: Record<string, string | boolean | undefined>;
     try {
       ({ values } = parseArgs({
@@ -140,19 +101,7 @@ export function main(argv: readonly string[], output: CliOutput = processOutput)
     const analysis = analyzeNoiseLog(log, { settings, masks, shiftHours });
     output.stdout(`${JSON.stringify(noiseCliReport(analysis), null, 2)}\n`);
     return 0;
-  } catch (error) {
-    if (error instanceof UsageError) {
-      output.stderr(`noise: ${error.message}\n${usage}\n`);
-      return 2;
-    }
-    if (error instanceof InputError) {
-      output.stderr(`noise: ${error.message}\n`);
-      return 1;
-    }
-    output.stderr(`noise: unexpected error: ${error instanceof Error ? error.stack ?? error.message : String(error)}\n`);
-    return 1;
-  }
+  });
 }
 
-const invokedDirectly = process.argv[1] !== undefined && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
-if (invokedDirectly) process.exitCode = main(process.argv.slice(2));
+if (isInvokedDirectly(import.meta.url)) process.exitCode = main(process.argv.slice(2));

@@ -40,3 +40,4 @@ export * from './bayes-summary';
 export * from './bayes-view';
 export * from './between-worker';
 export * from './sample-planner';
+export * from './engine-version';

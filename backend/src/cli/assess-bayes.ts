@@ -12,49 +12,17 @@
  * on which thread computed them: each group's chains are seeded from --seed alone.
  */
 import os from 'node:os';
-import { MessageChannel, receiveMessageOnPort, Worker, type MessagePort } from 'node:worker_threads';
-import { bayesianView, toAssessBayesOutput } from '@stats/bayes-view';
-import type { ShiftValue } from '@stats/types';
+import { MessageChannel, receiveMessageOnPort, type MessagePort, type Worker } from 'node:worker_threads';
+import { bayesFigures, type AssessBayesFigures, type BayesJob } from '../services/assessment-engine';
+import { BATCH_STATUS, startEngineWorker } from '../services/engine-threads';
 
-export interface BayesInterval {
-  median: number;
-  lower: number;
-  upper: number;
-  q95: number;
-}
-
-/** The Bayesian figures of one group as printed by the command (PRODUCT.md). */
-export interface AssessBayesFigures {
-  gm: BayesInterval;
-  gsd: BayesInterval;
-  p95: BayesInterval;
-  exceedanceFraction: BayesInterval;
-  categoryProbabilities: [number, number, number, number, number];
-}
-
-export interface BayesJob {
-  values: readonly ShiftValue[];
-  oel: number;
-  seed: number;
-}
-
-/** The figures of one group, computed in this thread; null when the Bayesian view refuses the data. */
-export function bayesFigures(job: BayesJob): AssessBayesFigures | null {
-  try {
-    const figures = toAssessBayesOutput(bayesianView(job.values, { oel: job.oel, prior: { kind: 'reference' }, settings: { seed: job.seed } }));
-    if (figures.exceedanceFraction === null || figures.categoryProbabilities === null) return null;
-    return { ...figures, exceedanceFraction: figures.exceedanceFraction, categoryProbabilities: figures.categoryProbabilities };
-  } catch (error) {
-    if (error instanceof RangeError) return null;
-    throw error;
-  }
-}
+// The figures and their computation live in services/assessment-engine.ts, shared with the API.
+export { bayesFigures, type AssessBayesFigures, type BayesInterval, type BayesJob } from '../services/assessment-engine';
 
 /** Below this many groups, starting workers (about 0.3 s each) costs more than it saves. */
 const MIN_GROUPS_FOR_WORKERS = 4;
-const STATUS_PENDING = 0;
-const STATUS_DONE = 1;
-const STATUS_FAILED = 2;
+const STATUS_PENDING = BATCH_STATUS.pending;
+const STATUS_DONE = BATCH_STATUS.done;
 
 /** Figures being computed for a list of jobs; `take` returns job j's figures (blocking until ready). */
 export interface BayesBatch {
@@ -84,12 +52,10 @@ export function startBayesBatch(jobs: readonly BayesJob[], useWorkers: boolean):
   const results = new Map<number, AssessBayesFigures | null>();
   const ports: MessagePort[] = [];
   const workers: Worker[] = [];
-  const target = new URL('./assess-bayes-worker.ts', import.meta.url).href;
   for (let w = 0; w < workerCount; w++) {
     const { port1, port2 } = new MessageChannel();
-    // The worker registers tsx (the command runs under it) and loads the TypeScript worker module.
-    const bootstrap = `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(target)}); })`;
-    const worker = new Worker(bootstrap, { eval: true, workerData: { jobs, shared, port: port2 }, transferList: [port2] });
+    // The worker module (services/assessment-worker.ts) in batch mode; engine-threads.ts registers tsx for it.
+    const worker = startEngineWorker({ mode: 'batch', jobs, shared, port: port2 }, [port2]);
     worker.on('error', () => {}); // a worker that fails to start claims no job; this thread does the work
     worker.unref();
     ports.push(port1);
@@ -128,4 +94,3 @@ export function startBayesBatch(jobs: readonly BayesJob[], useWorkers: boolean):
   };
 }
 
-export const BAYES_STATUS = Object.freeze({ pending: STATUS_PENDING, done: STATUS_DONE, failed: STATUS_FAILED });

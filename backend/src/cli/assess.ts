@@ -11,9 +11,10 @@
  */
 import { parseArgs } from 'node:util';
 import Papa from 'papaparse';
-import { assessMany, DEFAULT_ASSESSMENT_SEED, type GroupAssessment, type NamedGroupInput } from '@stats/assess-group';
-import type { ExposureCategory, ShiftValue } from '@stats/types';
-import { startBayesBatch, type AssessBayesFigures } from './assess-bayes';
+import { assessMany, DEFAULT_ASSESSMENT_SEED, type NamedGroupInput } from '@stats/assess-group';
+import type { ShiftValue } from '@stats/types';
+import { errorReportOf, refusalRule, reportOf, type AssessGroupReport } from '../services/assessment-engine';
+import { startBayesBatch } from './assess-bayes';
 import { InputError, isInvokedDirectly, numberOption, parseJsonFile, processOutput, readTextFile, runCommand, UsageError, type CliOutput } from './cli-support';
 
 export type { CliOutput } from './cli-support';
@@ -22,32 +23,8 @@ const numberPattern = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 export const usage = 'usage: npm run -s assess -- --input FILE.csv [--groups groups.json] [--oel N] [--bayes] [--seed N]';
 
 export type { AssessBayesFigures } from './assess-bayes';
-
-/** One group of the printed document; every figure is null when `error` is set. */
-export interface AssessGroupReport {
-  group: string;
-  n: number | null;
-  nCensored: number | null;
-  error: string | null;
-  gm: number | null;
-  gsd: number | null;
-  am: number | null;
-  sd: number | null;
-  p95: number | null;
-  utl95_95: number | null;
-  exceedanceFraction: number | null;
-  exceedanceFractionUcl95: number | null;
-  amMvue: number | null;
-  amUcl95: number | null;
-  shapiroWilk: { w: number; p: number } | null;
-  en689: { ur: number | null; ut: number | null; result: 'compliant' | 'non-compliant' | 'no-decision' } | null;
-  categoryByP95: ExposureCategory | null;
-  categoryByUtl: ExposureCategory | null;
-  /** Not in the PRODUCT.md list; added so that the record says how the figures were made. */
-  judgement: 'acceptable' | 'uncertain' | 'unacceptable' | null;
-  method: 'complete' | 'censored-mle' | 'ros' | null;
-  bayes: AssessBayesFigures | null;
-}
+// The report's shape and mapping are shared with the assessment API (services/assessment-engine.ts).
+export type { AssessGroupReport } from '../services/assessment-engine';
 
 /** A group as read from the CSV: its results, or the first bad value found with its row. */
 interface ParsedGroup {
@@ -139,58 +116,6 @@ export function parseGroupsJson(text: string, file: string): Map<string, GroupLi
   return limits;
 }
 
-function errorReport(group: string, error: string): AssessGroupReport {
-  return {
-    group,
-    n: null,
-    nCensored: null,
-    error,
-    gm: null,
-    gsd: null,
-    am: null,
-    sd: null,
-    p95: null,
-    utl95_95: null,
-    exceedanceFraction: null,
-    exceedanceFractionUcl95: null,
-    amMvue: null,
-    amUcl95: null,
-    shapiroWilk: null,
-    en689: null,
-    categoryByP95: null,
-    categoryByUtl: null,
-    judgement: null,
-    method: null,
-    bayes: null,
-  };
-}
-
-function groupReport(group: string, assessment: GroupAssessment, bayes: AssessBayesFigures | null): AssessGroupReport {
-  return {
-    group,
-    n: assessment.n,
-    nCensored: assessment.nonDetects,
-    error: null,
-    gm: assessment.gm,
-    gsd: assessment.gsd,
-    am: assessment.am,
-    sd: assessment.sd,
-    p95: assessment.p95,
-    utl95_95: assessment.utl95_95,
-    exceedanceFraction: assessment.exceedanceFraction,
-    exceedanceFractionUcl95: assessment.exceedanceFractionUcl95,
-    amMvue: assessment.amMvue,
-    amUcl95: assessment.amUcl95,
-    shapiroWilk: assessment.fitCheck.shapiroWilkLog,
-    en689: { ur: assessment.en689.ur, ut: assessment.en689.ut, result: assessment.en689.result },
-    categoryByP95: assessment.categoryByP95,
-    categoryByUtl: assessment.categoryByUtl,
-    judgement: assessment.judgement,
-    method: assessment.fit.method,
-    bayes,
-  };
-}
-
 export interface AssessOptions {
   oel?: number;
   groupLimits: Map<string, GroupLimits>;
@@ -206,12 +131,12 @@ export function assessParsedGroups(groups: readonly ParsedGroup[], options: Asse
   const inputs: NamedGroupInput[] = [];
   for (const group of groups) {
     if (group.valueError !== null) {
-      reports.set(group.name, errorReport(group.name, group.valueError));
+      reports.set(group.name, errorReportOf(group.name, group.valueError));
       continue;
     }
     const limits = options.groupLimits.get(group.name) ?? (options.oel === undefined ? undefined : { oel: options.oel });
     if (!limits) {
-      reports.set(group.name, errorReport(group.name, `no OEL for group "${group.name}": give --oel or an entry in the groups file`));
+      reports.set(group.name, errorReportOf(group.name, `no OEL for group "${group.name}": give --oel or an entry in the groups file`));
       continue;
     }
     inputs.push({ group: group.name, values: group.values, ...limits, seed: options.seed });
@@ -224,10 +149,10 @@ export function assessParsedGroups(groups: readonly ParsedGroup[], options: Asse
   for (const result of assessMany(inputs)) {
     if (result.error !== null) {
       // The engine names itself in its messages; the command reports the rule alone.
-      reports.set(result.group, errorReport(result.group, result.error.replace(/^assessGroup: /, "")));
+      reports.set(result.group, errorReportOf(result.group, refusalRule(result.error)));
     } else {
       const bayes = bayesBatch ? bayesBatch.take(bayesIndex.get(result.group) as number) : null;
-      reports.set(result.group, groupReport(result.group, result.assessment, bayes));
+      reports.set(result.group, reportOf(result.group, result.assessment, bayes));
     }
   }
   return groups.map((group) => reports.get(group.name) as AssessGroupReport);

@@ -14,3 +14,5 @@ export * from './list-query';
 export * from './sampling-plans';
 export * from './lab-imports';
 export * from './shift-results';
+export * from './noise-logs';
+export * from './decision-records';

@@ -18,11 +18,22 @@ export const organizationSettings = z.object({
   knockMg: z.number().positive().max(100_000).default(3000),
   /** Without a `moving` column, a change of the mean acceleration vector of at least this (milli-g) counts as motion. */
   motionChangeMg: z.number().positive().max(10_000).default(30),
+  /** A knock's proposed mask starts this many seconds before the knock interval. */
+  maskBeforeS: z.number().min(0).max(3600).default(2),
+  /** A knock's proposed mask ends this many seconds after the knock interval. */
+  maskAfterS: z.number().min(0).max(3600).default(3),
+  /** Calibration drift (after − before) beyond which a noise log is flagged, dB (common practice; stats/noise-settings.ts). */
+  driftLimitDb: z.number().positive().max(20).default(0.5),
   /**
    * Bayesian view: P(P95 > OEL) at or above which a group is judged unacceptable, above 0.05 and at
    * most 1. Absent: the engine's default, 0.30 (stats/bayes-summary.ts, docs/decisions/003-bayesian-view.md).
    */
   bayesUnacceptableThreshold: z.number().gt(0.05).max(1).optional(),
+  /**
+   * Months from approval to a decision record's review date. Absent: proposed from EN 689's reassessment
+   * guidance by GM/OEL (stats/en689.ts en689ReassessmentMonths: 36, 24, 18 or 12 months, from memory).
+   */
+  reviewIntervalMonths: z.number().int().min(1).max(120).optional(),
 });
 export type OrganizationSettings = z.infer<typeof organizationSettings>;
 

@@ -35,6 +35,8 @@ export function demoEmail(role: Role, organization: DemoOrganization = 'ridgebac
 export interface TestContextOptions {
   /** Seed the demo scenario (default true). */
   seed?: boolean;
+  /** Also seed the demo decision records (default false: they run the statistics engine, which takes seconds). */
+  decisions?: boolean;
   /** Replace parts of the test configuration (e.g. small rate limits, nodeEnv). */
   config?: Partial<AppConfig>;
   /** Start the e-mail capture and the Outbox endpoints (default true). */
@@ -129,7 +131,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
   const config = testConfig(join(folder, 'bellwether.db'), options.config);
   const db = openMigratedDatabase(config.databasePath);
   const clock = options.clock ?? createFakeClock();
-  if (options.seed ?? true) await seedDemo(db, { password: demoPassword, clock });
+  if (options.seed ?? true) await seedDemo(db, { password: demoPassword, clock, decisions: options.decisions ?? false });
   const capture = options.capture === false ? undefined : await startCaptureServer({ now: clock.now });
   const mailer = capture
     ? createSmtpMailer(capture.smtpUrl, config.mailFrom)

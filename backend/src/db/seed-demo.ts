@@ -10,6 +10,8 @@ import type { Clock } from '../clock';
 import { recordAudit } from '../services/audit';
 import { hashPassword } from '../services/passwords';
 import type { Db } from './client';
+import { seedDemoDecisions } from './seed-demo-decisions';
+import { seedDemoNoiseLogs } from './seed-demo-noise';
 import { seedDemoPlansAndResults } from './seed-demo-results';
 
 /*
@@ -377,7 +379,11 @@ export function databaseIsEmpty(db: Db): boolean {
  * Seeds the demo scenario into a new database, all in one transaction. Does nothing (and says
  * so) when the database already has users or organizations, so it is safe to call at every start.
  */
-export async function seedDemo(db: Db, options: { password: string; clock: Clock }): Promise<{ seeded: boolean }> {
+/**
+ * Seeds the demo into an empty database. `decisions` (default true) adds the demo decision records
+ * (seed-demo-decisions.ts), which run the statistics engine; tests that do not need them pass false.
+ */
+export async function seedDemo(db: Db, options: { password: string; clock: Clock; decisions?: boolean }): Promise<{ seeded: boolean }> {
   if (!databaseIsEmpty(db)) return { seeded: false };
   // Hash before the transaction: better-sqlite3 transactions are synchronous.
   const hashes = await Promise.all(people.map(() => hashPassword(options.password)));
@@ -385,7 +391,7 @@ export async function seedDemo(db: Db, options: { password: string; clock: Clock
   const stamp = now.toISOString();
   const times = { createdAt: stamp, updatedAt: stamp };
 
-  return db.transaction((tx) => {
+  const outcome = db.transaction((tx) => {
     if (tx.select({ total: count() }).from(users).get()!.total > 0) return { seeded: false };
     const userIds = people.map(
       (person, index) =>
@@ -491,4 +497,8 @@ export async function seedDemo(db: Db, options: { password: string; clock: Clock
     }
     return { seeded: true };
   });
+  // Noise logs go in before the decision records, so those are made from the groups' current data.
+  if (outcome.seeded) seedDemoNoiseLogs(db, options.clock);
+  if (outcome.seeded && options.decisions !== false) await seedDemoDecisions(db, options.clock);
+  return outcome;
 }

@@ -65,3 +65,43 @@ export function passwordResetEmail(input: { to: string; name: string; link: stri
     html: layout(subject, lines, { label: 'Choose a new password', url: input.link }, footer),
   };
 }
+
+/** Minutes and seconds from log start, e.g. 312 min 05 s → "5:12:05". */
+function clockFromSeconds(seconds: number): string {
+  const whole = Math.round(seconds);
+  const hours = Math.floor(whole / 3600);
+  const minutes = Math.floor((whole % 3600) / 60);
+  const rest = whole % 60;
+  return `${hours}:${String(minutes).padStart(2, '0')}:${String(rest).padStart(2, '0')}`;
+}
+
+/**
+ * To the hygienist who uploaded a noise log whose wear check found a still stretch at least the
+ * organization's still-time setting long: the meter may have been put down rather than worn.
+ */
+export function stillStretchEmail(input: {
+  to: string;
+  name: string;
+  organizationName: string;
+  fileName: string;
+  workerCode: string;
+  shiftDate: string;
+  stretches: ReadonlyArray<{ startS: number; endS: number }>;
+  stillMinutes: number;
+  link: string;
+}): MailMessage {
+  const subject = `Noise log ${input.fileName}: the meter was still for ${input.stillMinutes} min or more`;
+  const spans = input.stretches.map((stretch) => `${clockFromSeconds(stretch.startS)}–${clockFromSeconds(stretch.endS)} (${Math.round((stretch.endS - stretch.startS) / 60)} min)`);
+  const lines = [
+    `Hello ${input.name},`,
+    `The noise log ${input.fileName} you uploaded to ${input.organizationName} (worker ${input.workerCode}, shift of ${input.shiftDate}) has ${spans.length === 1 ? 'a still stretch' : `${spans.length} still stretches`} of at least ${input.stillMinutes} minutes, counted from the log start: ${spans.join('; ')}.`,
+    'During a still stretch the meter detected no motion: it may have been put down rather than worn. Review the log and mask the span with a reason if it was not worn, before accepting it into the group.',
+  ];
+  const footer = 'Statistics support and never replace the judgement of a qualified hygienist. Hearing conservation requirements come from the local regulations that apply.';
+  return {
+    to: input.to,
+    subject,
+    text: `${lines.join('\n\n')}\n\n${input.link}\n\n${footer}\n`,
+    html: layout(subject, lines, { label: 'Review the noise log', url: input.link }, footer),
+  };
+}

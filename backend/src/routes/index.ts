@@ -1,12 +1,15 @@
 import { agentRoutes } from './agents';
 import { assessmentRoutes } from './assessment';
 import { authRoutes } from './auth';
+import { dashboardRoutes } from './dashboard';
+import { decisionRecordRoutes } from './decision-records';
 import type { RouteDefinition } from './define-route';
 import { exposureGroupRoutes } from './exposure-groups';
 import { healthRoutes } from './health';
 import { invitationLinkRoutes } from './invitation-links';
 import { labImportRoutes } from './lab-imports';
 import { meRoutes } from './me';
+import { noiseLogRoutes } from './noise-logs';
 import { memberRoutes } from './members';
 import { organizationInvitationRoutes } from './organization-invitations';
 import { organizationRoutes } from './organizations';
@@ -36,5 +39,8 @@ export const apiRoutes: readonly RouteDefinition[] = [
   ...samplingPlanRoutes,
   ...shiftResultRoutes,
   ...labImportRoutes,
+  ...noiseLogRoutes,
   ...assessmentRoutes,
+  ...decisionRecordRoutes,
+  ...dashboardRoutes,
 ];

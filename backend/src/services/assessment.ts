@@ -175,7 +175,7 @@ function hearingConservationOf(group: AssessmentGroup, results: readonly Assessm
     unit: group.oelUnit,
     statement:
       `Hearing conservation trigger (action level): ${level} ${unitLabel(group.oelUnit)}; ` +
-      `${atOrAbove} of the ${results.length} results used are at or above it. ${usual}`,
+      `${atOrAbove} of the ${results.length} results used ${atOrAbove === 1 ? 'is' : 'are'} at or above it. ${usual}`,
     resultsAtOrAboveActionLevel: atOrAbove,
   };
 }

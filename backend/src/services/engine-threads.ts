@@ -50,6 +50,8 @@ export interface EnginePoolActivity {
   queued: number;
   /** Worker threads alive. */
   workers: number;
+  /** Of those, threads that have loaded the engine and take tasks. */
+  ready: number;
   /** Tasks finished since the pool started. */
   completed: number;
 }
@@ -202,6 +204,7 @@ export function createEnginePool(options: EnginePoolOptions = {}): EnginePool {
         running: slots.filter((slot) => slot.current).length + inlineRunning,
         queued: queue.length,
         workers: slots.length,
+        ready: slots.filter((slot) => slot.ready).length,
         completed,
       };
     },

@@ -13,6 +13,8 @@ export const organizationPages = [
   { path: '/agents', label: 'Agents & OELs', permission: 'org:read' },
   // Importing writes results: only for roles that may change data (the import history is on the same page).
   { path: '/lab-imports', label: 'Import results', permission: 'data:edit' },
+  { path: '/noise-logs', label: 'Noise logs', permission: 'org:read' },
+  { path: '/noise-settings', label: 'Noise settings', permission: 'settings:manage' },
   { path: '/users', label: 'People', permission: 'users:manage' },
 ] as const satisfies ReadonlyArray<{ path: string; label: string; permission: Permission }>;
 

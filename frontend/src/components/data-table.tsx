@@ -77,6 +77,8 @@ export function useServerListTable<TData extends RowData>({
     rowCount: page?.total ?? 0,
     enableMultiSort: false,
     enableSortingRemoval: false,
+    // The first press sorts ascending on every column (TanStack's default starts numbers descending).
+    sortDescFirst: false,
     state: { sorting, pagination },
     onSortingChange: (updater) => {
       const next = functionalUpdate(updater, sorting)[0];

@@ -34,13 +34,25 @@ const archivedOptions = [
   { value: 'all', label: 'In use and archived' },
 ];
 
-/** Search box plus "Show: in use / archived / all", and any other filters, above a list. */
-export function ListToolbar({ params, searchLabel, label, children }: { params: ListParams; searchLabel: string; label: string; children?: ReactNode }) {
+/** Search box plus "Show: in use / archived / all" (unless `archivable` is false), and any other filters, above a list. */
+export function ListToolbar({
+  params,
+  searchLabel,
+  label,
+  archivable = true,
+  children,
+}: {
+  params: ListParams;
+  searchLabel: string;
+  label: string;
+  archivable?: boolean;
+  children?: ReactNode;
+}) {
   return (
     <div className="flex flex-wrap items-start gap-3" role="search" aria-label={label}>
       <SearchField label={searchLabel} value={params.q} onSearch={(q) => params.update({ q }, { replace: true })} />
       {children}
-      <FilterSelect params={params} name="archived" label="Show" options={archivedOptions} className="w-48" />
+      {archivable && <FilterSelect params={params} name="archived" label="Show" options={archivedOptions} className="w-48" />}
     </div>
   );
 }

@@ -2,7 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState, type ReactNode } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { applyServerErrors } from '@frontend/lib/form-errors';
+import { applyServerErrorsInline } from '@frontend/lib/form-errors';
 import { Button } from './button';
 import { Dialog } from './dialog';
 import { TextAreaField } from './form-field';
@@ -80,7 +80,7 @@ function ReasonForm({
       await onConfirm(values.reason ? values.reason : undefined);
       onClose();
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, ['reason']));
+      setFormError(applyServerErrorsInline(error, form.setError, ['reason']));
     }
   });
   return (

@@ -1,7 +1,7 @@
 import type { Agent, AgentKind, ExposureUnit } from '@schema/agents';
 import type { ExposureGroup } from '@schema/exposure-groups';
 import type { samplingGuidance, SamplingPlan } from '@schema/sampling-plans';
-import type { ShiftResult } from '@schema/shift-results';
+import type { ShiftResult, ShiftResultDetails } from '@schema/shift-results';
 import type { GroupMembership } from '@schema/workers';
 
 /*
@@ -83,7 +83,9 @@ export type PlanSummary = Omit<SamplingPlan, 'organizationId'> & { exposureGroup
 export type PlanView = PlanSummary & { picks: PlanPick[]; guidance: SamplingGuidance };
 
 /** A shift result as the API sends it. */
-export type ShiftResultView = Omit<ShiftResult, 'organizationId'> & {
+export type ShiftResultView = Omit<ShiftResult, 'organizationId' | 'details'> & {
+  /** How the value was reached (the select schema types this JSON column loosely). */
+  details: ShiftResultDetails | null;
   worker: WorkerReference;
   exposureGroupName: string;
   agentName: string;

@@ -19,3 +19,19 @@ export function applyServerErrors<T extends FieldValues>(
   }
   return leftover.length > 0 ? `${error.message} (${leftover.join('; ')})` : error.message;
 }
+
+/**
+ * Like applyServerErrors, but when every field error found its input, the message for the form
+ * is only a pointer to them ("Correct the fields marked above."), so the same words do not show
+ * twice; anything not tied to a shown field still appears in full.
+ */
+export function applyServerErrorsInline<T extends FieldValues>(
+  error: unknown,
+  setError: UseFormSetError<T>,
+  formFields: ReadonlyArray<Path<T>>,
+): string {
+  const message = applyServerErrors(error, setError, formFields);
+  if (!isApiError(error) || !error.fields) return message;
+  const allShown = Object.keys(error.fields).every((field) => (formFields as readonly string[]).includes(field));
+  return allShown ? 'Correct the fields marked above.' : message;
+}

@@ -17,4 +17,6 @@ export const orgKeys = {
   samplingPlans: (organizationId: string) => ['orgs', organizationId, 'sampling-plans'] as const,
   labImports: (organizationId: string) => ['orgs', organizationId, 'lab-imports'] as const,
   samplingGuidance: (organizationId: string) => ['orgs', organizationId, 'sampling-guidance'] as const,
+  decisionRecords: (organizationId: string) => ['orgs', organizationId, 'decision-records'] as const,
+  dashboard: (organizationId: string) => ['orgs', organizationId, 'dashboard'] as const,
 };

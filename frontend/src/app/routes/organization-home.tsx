@@ -3,17 +3,32 @@ import { can, roleLabels } from '@schema/permissions';
 import { useOrganizationSummary } from '@frontend/features/organizations/api/get-organization-summary';
 import { RoleAccess } from '@frontend/features/organizations/components/role-access';
 import { SummaryCounts, SummaryCountsSkeleton } from '@frontend/features/organizations/components/summary-counts';
+import { useDashboard } from '@frontend/features/dashboard/api/get-dashboard';
+import { useMyOverview } from '@frontend/features/dashboard/api/get-my-overview';
+import { CategoryMatrix } from '@frontend/features/dashboard/components/category-matrix';
+import { AttentionLists, ReviewLists, SamplingProgress } from '@frontend/features/dashboard/components/group-lists';
+import { MyOrganizations } from '@frontend/features/dashboard/components/my-organizations';
+import { DecisionList } from '@frontend/features/decision-records/components/decision-list';
 import { CategoryLegend } from '@frontend/components/category-legend';
 import { CautionNote } from '@frontend/components/caution-note';
 import { DocumentTitle } from '@frontend/components/document-title';
 import { PageHeader } from '@frontend/components/page-header';
-import { EmptyState, ErrorState } from '@frontend/components/states';
+import { EmptyState, ErrorState, LoadingState } from '@frontend/components/states';
+import { useSession } from '../session';
 import { useMembership } from '../use-membership';
 
-/** /orgs/:orgId — the organization's overview. */
+/**
+ * /orgs/:orgId — the organization's overview and dashboard: counts, the site × category matrix of current
+ * approved decision records, unacceptable and uncertain groups, review dates due, sampling progress, recent
+ * decisions; for someone in several organizations (a consultant), those organizations side by side.
+ */
 export function Component() {
   const membership = useMembership();
   const summary = useOrganizationSummary(membership.organizationKey);
+  const dashboard = useDashboard(membership.organizationKey);
+  const me = useSession();
+  const several = me.memberships.length > 1;
+  const overview = useMyOverview(several);
   const name = summary.data?.organization.name ?? membership.organizationName;
   const counts = summary.data?.counts;
   const nothingSetUp = counts && counts.sites + counts.exposureGroups + counts.workers + counts.agents === 0;
@@ -59,6 +74,17 @@ export function Component() {
         )}
       </section>
 
+      <DashboardSections organizationId={membership.organizationKey} dashboard={dashboard} />
+
+      {several && overview.data && (
+        <section aria-labelledby="my-organizations-title" className="mb-6">
+          <h2 id="my-organizations-title" className="mb-2 text-base">
+            Your organizations
+          </h2>
+          <MyOrganizations organizations={overview.data.organizations} />
+        </section>
+      )}
+
       <div className="grid gap-4 lg:grid-cols-[1fr_20rem]">
         <div className="space-y-4">
           <CautionNote />
@@ -67,5 +93,54 @@ export function Component() {
         <CategoryLegend />
       </div>
     </>
+  );
+}
+
+function DashboardSections({ organizationId, dashboard }: { organizationId: string; dashboard: ReturnType<typeof useDashboard> }) {
+  if (dashboard.isPending) return <LoadingState label="Loading the dashboard…" className="mb-6" />;
+  if (dashboard.isError) return <ErrorState title="Could not load the dashboard" error={dashboard.error} onRetry={() => dashboard.refetch()} className="mb-6" />;
+  const data = dashboard.data;
+  return (
+    <div className="mb-6 space-y-6">
+      <section aria-labelledby="matrix-title">
+        <h2 id="matrix-title" className="mb-1 text-base">
+          Exposure categories by site
+        </h2>
+        <p className="mb-2 text-sm text-slate-600">
+          From each group's current approved decision record. {data.counts.decided} of {data.counts.groups} groups have one
+          {data.counts.outOfDate > 0 ? `; ${data.counts.outOfDate} out of date (results changed since approval)` : ''}
+          {data.counts.openDrafts > 0 ? `; ${data.counts.openDrafts} open drafts` : ''}.
+        </p>
+        <CategoryMatrix organizationId={organizationId} matrix={data.matrix} />
+      </section>
+      <section aria-labelledby="attention-title">
+        <h2 id="attention-title" className="mb-2 text-base">
+          Groups needing attention
+        </h2>
+        <AttentionLists organizationId={organizationId} dashboard={data} />
+      </section>
+      <section aria-labelledby="reviews-title">
+        <h2 id="reviews-title" className="mb-2 text-base">
+          Review dates
+        </h2>
+        <ReviewLists organizationId={organizationId} dashboard={data} />
+      </section>
+      <section aria-labelledby="progress-title">
+        <h2 id="progress-title" className="mb-2 text-base">
+          Sampling progress
+        </h2>
+        <SamplingProgress dashboard={data} />
+      </section>
+      <section aria-labelledby="recent-title">
+        <h2 id="recent-title" className="mb-2 text-base">
+          Recent decisions
+        </h2>
+        {data.recentDecisions.length === 0 ? (
+          <EmptyState title="No decision records yet" />
+        ) : (
+          <DecisionList organizationId={organizationId} records={data.recentDecisions} showGroup caption="Recent decision records" />
+        )}
+      </section>
+    </div>
   );
 }

@@ -4,7 +4,7 @@ import { useForm } from 'react-hook-form';
 import { agentCreate, type AgentCreate } from '@schema/agents';
 import { FormActions } from '@frontend/components/form-actions';
 import { SelectField, TextAreaField, TextField } from '@frontend/components/form-field';
-import { applyServerErrors } from '@frontend/lib/form-errors';
+import { applyServerErrorsInline } from '@frontend/lib/form-errors';
 import { useCreateAgent } from '../api/create-agent';
 import type { AgentView } from '../api/get-agents';
 import { useUpdateAgent } from '../api/update-agent';
@@ -41,11 +41,10 @@ export function AgentForm({ organizationId, agent, onSaved, onCancel }: { organi
 
   const submit = form.handleSubmit(async (values: AgentCreate) => {
     setFormError(null);
-    const input = values.kind === 'noise' ? { ...values, casNumber: null, molecularWeight: null } : values;
     try {
-      onSaved(agent ? await update.mutateAsync({ agentId: agent.id, changes: input }) : await create.mutateAsync(input));
+      onSaved(agent ? await update.mutateAsync({ agentId: agent.id, changes: values }) : await create.mutateAsync(values));
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, ['name', 'kind', 'casNumber', 'molecularWeight', 'notes']));
+      setFormError(applyServerErrorsInline(error, form.setError, ['name', 'kind', 'casNumber', 'molecularWeight', 'notes']));
     }
   });
 
@@ -53,7 +52,20 @@ export function AgentForm({ organizationId, agent, onSaved, onCancel }: { organi
     <form noValidate onSubmit={submit} className="space-y-3">
       <div className="grid gap-3 sm:grid-cols-[1fr_14rem]">
         <TextField label="Name" autoComplete="off" error={errors.name?.message} {...form.register('name')} />
-        <SelectField label="Kind" options={kindOptions} error={errors.kind?.message} {...form.register('kind')} />
+        <SelectField
+          label="Kind"
+          options={kindOptions}
+          error={errors.kind?.message}
+          {...form.register('kind', {
+            // Noise has no CAS number or molecular weight: clear the hidden fields.
+            onChange: (event) => {
+              if (event.target.value === 'noise') {
+                form.setValue('casNumber', null);
+                form.setValue('molecularWeight', null);
+              }
+            },
+          })}
+        />
       </div>
       {kind === 'chemical' && (
         <div className="grid gap-3 sm:grid-cols-2">

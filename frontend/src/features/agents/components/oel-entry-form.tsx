@@ -5,7 +5,7 @@ import type { z } from 'zod';
 import { averagingTimeLabels, averagingTimes, exposureUnitLabels, oelEntryCreate, unitsForAgentKind, type OelEntryCreate } from '@schema/agents';
 import { FormActions } from '@frontend/components/form-actions';
 import { SelectField, TextAreaField, TextField } from '@frontend/components/form-field';
-import { applyServerErrors } from '@frontend/lib/form-errors';
+import { applyServerErrorsInline } from '@frontend/lib/form-errors';
 import { useCreateOelEntry } from '../api/create-oel-entry';
 import type { AgentView } from '../api/get-agents';
 import type { OelEntryView } from '../api/get-oel-entries';
@@ -57,7 +57,7 @@ export function OelEntryForm({
     try {
       onSaved(entry ? await update.mutateAsync({ entryId: entry.id, changes: values }) : await create.mutateAsync(values));
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, ['agentId', 'source', 'value', 'unit', 'averagingTime', 'notes']));
+      setFormError(applyServerErrorsInline(error, form.setError, ['agentId', 'source', 'value', 'unit', 'averagingTime', 'notes']));
     }
   });
 

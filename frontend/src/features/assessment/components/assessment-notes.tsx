@@ -1,25 +1,26 @@
 import { CautionNote, cautionText } from '@frontend/components/caution-note';
 import type { GroupAssessmentResponse } from '../api/get-assessment';
 
-/**
- * The cautions PRODUCT.md asks for on assessment pages, the hearing conservation trigger for noise
- * groups, and any caution the server adds for this group (e.g. results in dB(A)).
- */
-export function AssessmentCautions({ cautions, hearingConservation }: Pick<GroupAssessmentResponse, 'cautions' | 'hearingConservation'>) {
+/** The hearing conservation trigger (action level) of a noise group, shown wherever its results are shown. */
+export function HearingConservation({ note }: { note: NonNullable<GroupAssessmentResponse['hearingConservation']> }) {
+  return (
+    <aside aria-labelledby="hearing-title" className="rounded-md border border-primary-200 bg-primary-50/70 px-4 py-3 text-sm text-primary-900">
+      <h2 id="hearing-title" className="text-sm text-primary-900">
+        Hearing conservation
+      </h2>
+      <p className="mt-1" data-testid="hearing-conservation">
+        {note.statement}
+      </p>
+    </aside>
+  );
+}
+
+/** The cautions PRODUCT.md asks for on assessment pages, and any caution the server adds for this group (e.g. results in dB(A)). */
+export function AssessmentCautions({ cautions }: Pick<GroupAssessmentResponse, 'cautions'>) {
   // The two general cautions are in CautionNote; anything else the server adds is shown as well.
   const extra = cautions.filter((caution) => caution !== cautionText.judgement && caution !== cautionText.regulations);
   return (
     <div className="space-y-2">
-      {hearingConservation && (
-        <aside aria-labelledby="hearing-title" className="rounded-md border border-primary-200 bg-primary-50/70 px-4 py-3 text-sm text-primary-900">
-          <h2 id="hearing-title" className="text-sm text-primary-900">
-            Hearing conservation
-          </h2>
-          <p className="mt-1" data-testid="hearing-conservation">
-            {hearingConservation.statement}
-          </p>
-        </aside>
-      )}
       <CautionNote />
       {extra.map((caution) => (
         <p key={caution} className="rounded-md border border-amber-300/80 bg-amber-50/70 px-4 py-2 text-sm text-amber-950">

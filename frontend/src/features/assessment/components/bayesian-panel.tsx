@@ -4,7 +4,7 @@ import { Notice } from '@frontend/components/notice';
 import type { GroupAssessmentResponse } from '../api/get-assessment';
 import { formatFigure, formatProbability, formatShare } from '../lib/format-figure';
 import { Figure } from './figure';
-import { Panel } from './figure-table';
+import { ColumnHeads, Panel } from './figure-table';
 import { JudgementBadge } from './judgement-badge';
 
 type View = NonNullable<GroupAssessmentResponse['bayes']>;
@@ -61,22 +61,7 @@ export function BayesianPanel({ assessment }: { assessment: GroupAssessmentRespo
       }
     >
       <table className="w-full text-sm" aria-label="Bayesian posterior summaries">
-        <thead>
-          <tr className="text-left text-xs text-slate-500">
-            <th scope="col" className="pb-1 font-medium">
-              Figure
-            </th>
-            <th scope="col" className="pb-1 font-medium">
-              Median
-            </th>
-            <th scope="col" className="pb-1 font-medium">
-              95 % credible limits
-            </th>
-            <th scope="col" className="pb-1 font-medium">
-              95 % point
-            </th>
-          </tr>
-        </thead>
+        <ColumnHeads names={['Figure', 'Median', '95 % credible limits', '95 % point']} />
         <tbody className="divide-y divide-slate-100">
           <SummaryRow label="Geometric mean" summary={bayes.gm} unit={unit} />
           <SummaryRow label="GSD" summary={bayes.gsd} />
@@ -101,16 +86,7 @@ export function BayesianPanel({ assessment }: { assessment: GroupAssessmentRespo
 
       {bayes.categoryProbabilities && (
         <table className="mt-3 w-full text-sm" aria-label="Probability of each exposure category (Bayesian view)">
-          <thead>
-            <tr className="text-left text-xs text-slate-500">
-              <th scope="col" className="pb-1 font-medium">
-                Exposure category
-              </th>
-              <th scope="col" className="pb-1 font-medium">
-                Probability
-              </th>
-            </tr>
-          </thead>
+          <ColumnHeads names={['Exposure category', 'Probability']} />
           <tbody>
             {bayes.categoryProbabilities.map((probability, category) => (
               <tr key={category}>

@@ -1,7 +1,7 @@
 import type { GroupAssessmentResponse } from '../api/get-assessment';
 import { formatFigure, formatProbability } from '../lib/format-figure';
 import { Figure } from './figure';
-import { FigureRow, FigureTable, Panel } from './figure-table';
+import { ColumnHeads, FigureRow, FigureTable, Panel } from './figure-table';
 
 /** Within- and between-worker variation, the F-test, P(a worker's mean > OEL) and workers who may not belong. */
 export function BetweenWorkerPanel({ assessment }: { assessment: GroupAssessmentResponse }) {
@@ -43,22 +43,7 @@ export function BetweenWorkerPanel({ assessment }: { assessment: GroupAssessment
         )}
       </FigureTable>
       <table className="mt-3 w-full text-sm" aria-label="Workers in the between-worker analysis">
-        <thead>
-          <tr className="text-left text-xs text-slate-500">
-            <th scope="col" className="pb-1 font-medium">
-              Worker
-            </th>
-            <th scope="col" className="pb-1 font-medium">
-              Results
-            </th>
-            <th scope="col" className="pb-1 font-medium">
-              Geometric mean
-            </th>
-            <th scope="col" className="pb-1 font-medium">
-              May not belong?
-            </th>
-          </tr>
-        </thead>
+        <ColumnHeads names={['Worker', 'Results', 'Geometric mean', 'May not belong?']} />
         <tbody className="divide-y divide-slate-100">
           {w.workerSummaries.map((worker) => (
             <tr key={worker.worker} className={worker.flagged ? 'bg-amber-50' : undefined}>

@@ -87,13 +87,7 @@ export function ClassicalPanel({ assessment }: { assessment: GroupAssessmentResp
           value={en689Words[c.en689.result]}
           note={
             <>
-              {c.en689.test === 'statistical' ? (
-                <>
-                  Statistical test: UR {formatFigure(c.en689.ur)} against UT {formatFigure(c.en689.ut)}.{' '}
-                </>
-              ) : (
-                'Preliminary test (3–5 results). '
-              )}
+              {c.en689.test === 'statistical' ? 'Statistical test (6 or more results). ' : 'Preliminary test (3–5 results). '}
               {c.en689.explanation}{' '}
               {c.en689.reassessmentMonths !== null
                 ? `Reassess within ${c.en689.reassessmentMonths} months (EN 689 guidance on the GM as a share of the OEL).`

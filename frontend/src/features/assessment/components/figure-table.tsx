@@ -35,3 +35,18 @@ export function Panel({ id, title, subtitle, children, className = '' }: { id: s
     </section>
   );
 }
+
+/** The header row of a small table of figures: one column heading per name. */
+export function ColumnHeads({ names }: { names: readonly string[] }) {
+  return (
+    <thead>
+      <tr className="text-left text-xs text-slate-500">
+        {names.map((name) => (
+          <th key={name} scope="col" className="pb-1 font-medium">
+            {name}
+          </th>
+        ))}
+      </tr>
+    </thead>
+  );
+}

@@ -11,7 +11,7 @@ export function Figure({ value, unit, share = false }: { value: number | null | 
   return (
     <span className="tabular-nums" title={full === undefined ? undefined : share ? `${full} (as a share of 1)` : full}>
       {text}
-      {unit && value !== null && value !== undefined && <span className="text-slate-500"> {unitLabel(unit)}</span>}
+      {unit && value !== null && value !== undefined && <> {unitLabel(unit)}</>}
     </span>
   );
 }

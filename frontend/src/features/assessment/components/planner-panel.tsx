@@ -1,6 +1,6 @@
 import type { GroupAssessmentResponse } from '../api/get-assessment';
 import { formatProbability } from '../lib/format-figure';
-import { Panel } from './figure-table';
+import { ColumnHeads, Panel } from './figure-table';
 
 /** The sample planner: its one sentence and the forecast for k = 1..12 more shifts, labelled a forecast, not a promise. */
 export function PlannerPanel({ assessment }: { assessment: GroupAssessmentResponse }) {
@@ -18,22 +18,7 @@ export function PlannerPanel({ assessment }: { assessment: GroupAssessmentRespon
         {plan.statement}
       </p>
       <table className="mt-2 w-full text-sm" aria-label="Forecast: probability that k more shifts settle the judgement">
-        <thead>
-          <tr className="text-left text-xs text-slate-500">
-            <th scope="col" className="pb-1 font-medium">
-              More shifts
-            </th>
-            <th scope="col" className="pb-1 font-medium">
-              Settled
-            </th>
-            <th scope="col" className="pb-1 font-medium">
-              Acceptable
-            </th>
-            <th scope="col" className="pb-1 font-medium">
-              Unacceptable
-            </th>
-          </tr>
-        </thead>
+        <ColumnHeads names={['More shifts', 'Settled', 'Acceptable', 'Unacceptable']} />
         <tbody className="divide-y divide-slate-100 tabular-nums">
           {plan.forecasts.map((forecast) => {
             const recommended = forecast.additional === plan.recommendedAdditional;

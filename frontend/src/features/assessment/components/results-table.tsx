@@ -39,13 +39,19 @@ export function ResultsTable({
       <table className="table-dense w-full" aria-label="Valid shift results of this group">
         <thead>
           <tr>
-            {canLeaveOut && <th scope="col">Leave out</th>}
+            {canLeaveOut && (
+              <th scope="col" className="w-24">
+                Leave out
+              </th>
+            )}
             <th scope="col">Date</th>
             <th scope="col">Worker</th>
             <th scope="col" className="text-right">
               Value ({unitLabel(unit)})
             </th>
-            <th scope="col">Source</th>
+            <th scope="col" className="w-1/3">
+              Source
+            </th>
           </tr>
         </thead>
         <tbody>

@@ -73,6 +73,8 @@ export function WhatIfChanges({
   onClear: () => void;
 }) {
   const changes = baseline && current ? changesBetween(baseline, current) : [];
+  // Judgement and category always show (changed or not); other figures when they changed.
+  const shown = changes.filter((change, index) => index < 2 || change.changed);
   const changed = changes.filter((change) => change.changed);
   return (
     <section aria-labelledby="what-if-title" className="rounded-md border border-primary-200 bg-primary-50/60 px-4 py-3 text-sm">
@@ -100,7 +102,7 @@ export function WhatIfChanges({
             </tr>
           </thead>
           <tbody>
-            {(changed.length > 0 ? changed : changes.slice(0, 2)).map((change) => (
+            {shown.map((change) => (
               <tr key={change.label}>
                 <th scope="row" className="py-0.5 pr-3 text-left font-medium text-slate-700">
                   {change.label}
@@ -111,13 +113,14 @@ export function WhatIfChanges({
                     →
                   </span>
                   {change.after}
+                  {!change.changed && <span className="ml-2 text-xs text-slate-600">(unchanged)</span>}
                 </td>
               </tr>
             ))}
           </tbody>
         </table>
       )}
-      {baseline && current && changed.length === 0 && <p className="mt-1 text-slate-700">No figure above changed.</p>}
+      {baseline && current && changed.length === 0 && <p className="mt-1 text-slate-700">No figure changed.</p>}
     </section>
   );
 }

@@ -36,7 +36,8 @@ export function chartDescriptions(assessment: GroupAssessmentResponse): ChartDes
       `Each of the ${c.n} results${nonDetectPart(c.nonDetects)} against its normal score, on a logarithmic value scale, with the fitted lognormal line ` +
       `(geometric mean ${formatFigure(c.gm)} ${unit}, GSD ${formatFigure(c.gsd)}). ` +
       (swLog ? (swLog.p < 0.05 ? `The points bend away from the line (Shapiro–Wilk p = ${formatFigure(swLog.p)}). ` : 'The points follow the line. ') : '') +
-      `The 95th percentile estimate, ${p95}, is ${c.p95 > group.oel ? 'above' : 'below'} the OEL of ${oel}; both are drawn as horizontal lines.`,
+      `The 95th percentile estimate, ${p95}, is ${c.p95 > group.oel ? 'above' : 'below'} the OEL of ${oel}; both are drawn as horizontal lines` +
+      (group.actionLevel !== null ? `, as is the action level (${formatFigure(group.actionLevel)} ${unit}).` : '.'),
   });
 
   const detected = data.results.filter((result) => !result.nonDetect).length;
@@ -67,7 +68,8 @@ export function chartDescriptions(assessment: GroupAssessmentResponse): ChartDes
       `${nonDetectPart(c.nonDetects)}, on a logarithmic scale, with the OEL` +
       (group.actionLevel !== null ? ` and the action level (${formatFigure(group.actionLevel)} ${unit})` : '') +
       '.' +
-      (data.excluded.length > 0 ? ` The ${data.excluded.length} left out (what-if) are drawn as grey crosses.` : ''),
+      (data.excluded.length === 1 ? ' The result left out (what-if) is drawn as a grey cross.' : '') +
+      (data.excluded.length > 1 ? ` The ${data.excluded.length} results left out (what-if) are drawn as grey crosses.` : ''),
   });
 
   const byWorker = new Map<string, number>();
@@ -77,8 +79,11 @@ export function chartDescriptions(assessment: GroupAssessmentResponse): ChartDes
     kind: 'workers',
     title: 'Results per worker',
     caption:
-      `The results of each of the ${byWorker.size} workers (${[...byWorker.entries()].map(([worker, count]) => `${worker}: ${count}`).join(', ')}), ` +
-      'as points over a box of their spread, on a logarithmic scale, with the OEL.' +
+      `The results of each of the ${byWorker.size} workers (${[...byWorker.entries()]
+        .sort(([a], [b]) => (a < b ? -1 : 1))
+        .map(([worker, count]) => `${worker}: ${count}`)
+        .join(', ')}), ` +
+      `as points over a box of their spread, on a logarithmic scale, with the OEL${group.actionLevel !== null ? ' and the action level' : ''}.` +
       (highest ? ` The highest geometric mean is ${highest.worker}'s, ${formatFigure(highest.gm)} ${unit}.` : ''),
   });
   return charts;

@@ -19,6 +19,8 @@ export function formatShare(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
   if (value === 0) return '0 %';
   if (value === 1) return '100 %';
+  // Below 0.001 % the digits say nothing a reader can use (the tooltip keeps them).
+  if (value < 1e-5) return '< 0.001 %';
   return `${significant.format(value * 100)} %`;
 }
 

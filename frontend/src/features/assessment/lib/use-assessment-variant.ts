@@ -1,4 +1,4 @@
-import { useCallback, useMemo } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router';
 import { priorNames, type PriorName } from '@schema/assessment';
 import type { AssessmentVariant } from '../api/get-assessment';
@@ -15,6 +15,10 @@ export function parseExcludeParam(text: string | null): number[] {
   return [...new Set(ids)].sort((a, b) => a - b);
 }
 
+function sameVariant(a: AssessmentVariant, b: AssessmentVariant): boolean {
+  return a.prior === b.prior && a.exclude.length === b.exclude.length && a.exclude.every((id, index) => id === b.exclude[index]);
+}
+
 function parsePrior(text: string | null): PriorName {
   return priorNames.find((name) => name === text) ?? 'reference';
 }
@@ -28,10 +32,17 @@ export function useAssessmentVariant() {
   const [search, setSearch] = useSearchParams();
   const excludeText = search.get('exclude');
   const priorText = search.get('prior');
-  const variant: AssessmentVariant = useMemo(() => ({ exclude: parseExcludeParam(excludeText), prior: parsePrior(priorText) }), [excludeText, priorText]);
+  const fromAddress: AssessmentVariant = useMemo(() => ({ exclude: parseExcludeParam(excludeText), prior: parsePrior(priorText) }), [excludeText, priorText]);
+  // The address changes through a navigation, which completes a moment later; the page shows the choice at once.
+  const [pending, setPending] = useState<AssessmentVariant | null>(null);
+  const variant = pending ?? fromAddress;
+  useEffect(() => {
+    if (pending && sameVariant(pending, fromAddress)) setPending(null);
+  }, [pending, fromAddress]);
 
   const update = useCallback(
     (next: AssessmentVariant) => {
+      setPending({ exclude: [...next.exclude].sort((a, b) => a - b), prior: next.prior });
       setSearch(
         (current) => {
           const params = new URLSearchParams(current);

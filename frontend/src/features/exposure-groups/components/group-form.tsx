@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useId, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { averagingTimeLabels, averagingTimes, exposureUnitLabels, unitsForAgentKind, type AgentKind } from '@schema/agents';
@@ -9,7 +9,7 @@ import { FormActions } from '@frontend/components/form-actions';
 import { SelectField, TextAreaField, TextField } from '@frontend/components/form-field';
 import { Notice } from '@frontend/components/notice';
 import type { ExposureGroupView } from '@frontend/lib/api-types';
-import { applyServerErrors } from '@frontend/lib/form-errors';
+import { applyServerErrorsInline } from '@frontend/lib/form-errors';
 import { formatNumber } from '@frontend/lib/format';
 import { useCreateExposureGroup } from '../api/create-exposure-group';
 import { useUpdateExposureGroup } from '../api/update-exposure-group';
@@ -122,8 +122,18 @@ export function GroupForm({
 }) {
   const create = useCreateExposureGroup(organizationId);
   const update = useUpdateExposureGroup(organizationId);
+  const [oelMode, setOelMode] = useState<'list' | 'typed'>(group ? (group.oelEntryId !== null ? 'list' : 'typed') : 'list');
+  // With a list entry chosen, the typed-in OEL fields are hidden and not sent: leave them out of
+  // the check too, or a blank hidden field would block the form without a visible message.
+  const oelModeRef = useRef(oelMode);
+  oelModeRef.current = oelMode;
   const form = useForm<FormValues, unknown, ExposureGroupCreate>({
-    resolver: zodResolver(exposureGroupCreate),
+    resolver: (values, context, options) =>
+      zodResolver(exposureGroupCreate)(
+        oelModeRef.current === 'list' ? { ...values, oelValue: undefined, oelUnit: undefined, oelSource: undefined, oelAveragingTime: undefined } : values,
+        context,
+        options,
+      ),
     defaultValues: {
       siteId: group?.siteId ?? sites[0]?.id,
       name: group?.name ?? '',
@@ -143,7 +153,6 @@ export function GroupForm({
       extendedShiftAdjustment: group?.extendedShiftAdjustment ?? 'none',
     },
   });
-  const [oelMode, setOelMode] = useState<'list' | 'typed'>(group ? (group.oelEntryId !== null ? 'list' : 'typed') : 'list');
   const [formError, setFormError] = useState<string | null>(null);
   const { errors, isSubmitting } = form.formState;
   const modeName = useId();
@@ -191,9 +200,9 @@ export function GroupForm({
     try {
       onSaved(group ? await update.mutateAsync({ groupId: group.id, changes: input }) : await create.mutateAsync(input));
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, formFields));
+      setFormError(applyServerErrorsInline(error, form.setError, formFields));
     }
-  });
+  }, () => setFormError('Check the fields marked above.'));
 
   const agentOptions = agents.map((choice) => ({ value: String(choice.id), label: `${choice.name} (${choice.kind === 'noise' ? 'noise' : 'chemical'})` }));
   if (group && !agents.some((choice) => choice.id === group.agentId)) agentOptions.unshift({ value: String(group.agentId), label: group.agentName });

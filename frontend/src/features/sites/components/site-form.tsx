@@ -4,7 +4,7 @@ import { useForm } from 'react-hook-form';
 import { siteCreate, type SiteCreate } from '@schema/sites';
 import { FormActions } from '@frontend/components/form-actions';
 import { TextAreaField, TextField } from '@frontend/components/form-field';
-import { applyServerErrors } from '@frontend/lib/form-errors';
+import { applyServerErrorsInline } from '@frontend/lib/form-errors';
 import { useCreateSite } from '../api/create-site';
 import type { SiteView } from '../api/get-sites';
 import { useUpdateSite } from '../api/update-site';
@@ -22,7 +22,7 @@ export function SiteForm({ organizationId, site, onSaved, onCancel }: { organiza
     try {
       onSaved(site ? await update.mutateAsync({ siteId: site.id, changes: values }) : await create.mutateAsync(values));
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, ['name', 'description']));
+      setFormError(applyServerErrorsInline(error, form.setError, ['name', 'description']));
     }
   });
 

@@ -5,7 +5,7 @@ import type { z } from 'zod';
 import { groupMembershipUpdate, type GroupMembershipUpdate } from '@schema/workers';
 import { FormActions } from '@frontend/components/form-actions';
 import { TextField } from '@frontend/components/form-field';
-import { applyServerErrors } from '@frontend/lib/form-errors';
+import { applyServerErrorsInline } from '@frontend/lib/form-errors';
 import { todayCalendarDate } from '@frontend/lib/format';
 import { useUpdateGroupMembership } from '../api/update-group-membership';
 
@@ -42,7 +42,7 @@ export function MembershipDatesForm({
       await update.mutateAsync({ membershipId: membership.id, changes: ending ? { toDate: values.toDate } : values });
       onSaved();
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, ['fromDate', 'toDate']));
+      setFormError(applyServerErrorsInline(error, form.setError, ['fromDate', 'toDate']));
     }
   });
 

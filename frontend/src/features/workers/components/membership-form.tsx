@@ -6,7 +6,7 @@ import { groupMembershipCreate, type GroupMembershipCreate } from '@schema/worke
 import { FormActions } from '@frontend/components/form-actions';
 import { SelectField, TextField } from '@frontend/components/form-field';
 import type { WorkerMembership } from '@frontend/lib/api-types';
-import { applyServerErrors } from '@frontend/lib/form-errors';
+import { applyServerErrorsInline } from '@frontend/lib/form-errors';
 import { todayCalendarDate } from '@frontend/lib/format';
 import { useCreateGroupMembership } from '../api/create-group-membership';
 
@@ -48,7 +48,7 @@ export function MembershipForm({
     try {
       onSaved(await create.mutateAsync(values));
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, ['workerId', 'exposureGroupId', 'fromDate', 'toDate']));
+      setFormError(applyServerErrorsInline(error, form.setError, ['workerId', 'exposureGroupId', 'fromDate', 'toDate']));
     }
   });
 

@@ -5,7 +5,7 @@ import type { z } from 'zod';
 import { workerCreate, type WorkerCreate } from '@schema/workers';
 import { FormActions } from '@frontend/components/form-actions';
 import { TextField } from '@frontend/components/form-field';
-import { applyServerErrors } from '@frontend/lib/form-errors';
+import { applyServerErrorsInline } from '@frontend/lib/form-errors';
 import { useCreateWorker } from '../api/create-worker';
 import type { WorkerDetail } from '../api/get-worker';
 import type { WorkerPublic } from '../api/get-workers';
@@ -39,11 +39,15 @@ export function WorkerForm({
 
   const submit = form.handleSubmit(async (values) => {
     setFormError(null);
-    const input = canSeeNames ? values : { code: values.code, jobTitle: values.jobTitle };
     try {
-      onSaved(worker ? await update.mutateAsync({ workerId: worker.id, changes: input }) : await create.mutateAsync(input));
+      onSaved(
+        worker
+          ? // Without the name field, leave the stored name as it is.
+            await update.mutateAsync({ workerId: worker.id, changes: canSeeNames ? values : { code: values.code, jobTitle: values.jobTitle } })
+          : await create.mutateAsync(canSeeNames ? values : { ...values, name: null }),
+      );
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, ['code', 'name', 'jobTitle']));
+      setFormError(applyServerErrorsInline(error, form.setError, ['code', 'name', 'jobTitle']));
     }
   });
 

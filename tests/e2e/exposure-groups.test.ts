@@ -185,6 +185,32 @@ describe('an exposure group, from set-up to results', () => {
     await context.close();
   }, 300_000); // a long journey on a shared machine
 
+  it('a field sheet of 30 picks prints as two A4 pages of at most 25 rows, each with its heading', async () => {
+    const { context, page, assertClean } = await open();
+    await signIn(page, demoUsers.hygienist);
+    await page.goto(`${organizationBase(page)}/exposure-groups`);
+    await page.getByRole('link', { name: 'Maintenance fitter – noise' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Maintenance fitter – noise' }).waitFor();
+    await page.getByRole('button', { name: /^(New plan|Plan sampling)$/ }).click();
+    const planDialog = dialog(page, 'Plan sampling');
+    await planDialog.getByLabel('Shifts to measure').fill('30');
+    await planDialog.getByLabel('From').fill('2024-09-02');
+    await planDialog.getByLabel('To', { exact: true }).fill('2024-12-20');
+    await planDialog.getByRole('button', { name: 'Draw the plan' }).click();
+    await page.getByText(/^Plan drawn: 30 worker-shifts picked with seed \d+\.$/).waitFor();
+
+    await page.getByRole('link', { name: 'Field sheet' }).first().click();
+    await page.getByText('30 worker-shifts on 2 printed pages (25 rows each, A4 landscape).').waitFor();
+    expect(await page.getByRole('table', { name: /Picked worker-shifts, page 1/ }).locator('tbody tr').count()).toBe(25);
+    expect(await page.getByRole('table', { name: /Picked worker-shifts, page 2/ }).locator('tbody tr').count()).toBe(5);
+    // Chromium's own print layout: the PDF's page tree counts two pages (not three: nothing spills over).
+    const pdf = (await page.pdf({ preferCSSPageSize: true })).toString('latin1');
+    expect(/\/Count (\d+)/.exec(pdf)?.[1]).toBe('2');
+    await screenshot(page, 'field-sheet-two-pages');
+    assertClean();
+    await context.close();
+  });
+
   it('the group page has no serious or critical accessibility violations', async () => {
     const { context, page, assertClean } = await open();
     await signIn(page, demoUsers.hygienist);
@@ -298,11 +324,13 @@ describe('sites, agents and workers', () => {
     await page.getByRole('button', { name: 'Archive site Ridgeback kiln yard' }).click();
     await dialog(page, /Archive site/).getByLabel('Reason (optional)').fill('Kilns moved to the planing mill');
     await dialog(page, /Archive site/).getByRole('button', { name: 'Archive' }).click();
+    await page.getByText('Site “Ridgeback kiln yard” archived.').waitFor();
     await expect.poll(() => sites.locator('tbody tr').count()).toBe(0);
     await page.getByLabel('Show').selectOption({ label: 'Archived' });
     await sites.getByText('Ridgeback kiln yard').waitFor();
     await page.getByRole('button', { name: 'Bring back site Ridgeback kiln yard' }).click();
     await dialog(page, /Bring back site/).getByRole('button', { name: 'Bring back' }).click();
+    await page.getByText('Site “Ridgeback kiln yard” brought back.').waitFor();
     await expect.poll(() => sites.locator('tbody tr').count()).toBe(0);
     await screenshot(page, 'sites-hygienist');
     assertClean();

@@ -6,8 +6,17 @@ import { demoUsers, navigationItems, organizationNames, screenshot, signIn, useE
 
 const app = useE2eApp();
 
+// The sidebar of each role (schema/permissions.ts, app/navigation.ts): pages every member reads,
+// the import for roles that change data, settings and people for admins.
+const readingPages = ['Overview', 'Exposure groups', 'Workers', 'Sites', 'Agents & OELs'];
+const navigationOf = {
+  admin: [...readingPages, 'Import results', 'Noise logs', 'Noise settings', 'People', 'Outbox'],
+  hygienist: [...readingPages, 'Import results', 'Noise logs'],
+  reader: [...readingPages, 'Noise logs'],
+};
+
 describe('signing in as each demo role', () => {
-  it('an admin lands on the organization overview with its real counts and sees Overview, People and Outbox', async () => {
+  it('an admin lands on the organization overview with its real counts and sees every page, People and Outbox included', async () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.admin);
 
@@ -15,7 +24,7 @@ describe('signing in as each demo role', () => {
     await page.getByRole('heading', { level: 1, name: organizationNames.ridgeback }).waitFor();
     // The Outbox item appears once GET /api/outbox has answered that the capture runs.
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /Outbox/ }).waitFor();
-    expect(await navigationItems(page)).toEqual(['Overview', 'People', 'Outbox']);
+    expect(await navigationItems(page)).toEqual(navigationOf.admin);
 
     // The figures come from GET /api/orgs/:orgId/summary; the demo has sites, groups, workers and agents.
     const summary = await page.evaluate(async (path) => (await fetch(path)).json(), `/api${new URL(page.url()).pathname}/summary`);
@@ -25,17 +34,19 @@ describe('signing in as each demo role', () => {
     }
     expect(summary.counts.members).toBeGreaterThan(0);
     await page.getByText('Statistics support and never replace the judgement of a qualified hygienist.').first().waitFor();
-    await page.getByText('2 · Moderate').waitFor();
+    // The category legend names every band with its number and word (never colour alone).
+    await page.getByText('Exposure categories', { exact: true }).waitFor();
+    await page.getByText('2 · Moderate').first().waitFor();
     await screenshot(page, 'home-admin');
     assertClean();
     await context.close();
   });
 
-  it('a hygienist sees only the overview, and the people page answers that the role does not include it', async () => {
+  it('a hygienist sees the data pages and the import but not People, and the people page answers that the role does not include it', async () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.hygienist);
     await page.getByRole('heading', { level: 1, name: organizationNames.ridgeback }).waitFor();
-    expect(await navigationItems(page)).toEqual(['Overview']);
+    expect(await navigationItems(page)).toEqual(navigationOf.hygienist);
     await page.getByRole('heading', { name: 'What you can do as Hygienist' }).waitFor();
 
     await page.goto(`${new URL(page.url()).pathname}/users`);
@@ -44,11 +55,11 @@ describe('signing in as each demo role', () => {
     await context.close();
   });
 
-  it('an analyst sees only the overview', async () => {
+  it('an analyst sees the pages to read, without the import or People', async () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.analyst);
     await page.getByRole('heading', { level: 1, name: organizationNames.ridgeback }).waitFor();
-    expect(await navigationItems(page)).toEqual(['Overview']);
+    expect(await navigationItems(page)).toEqual(navigationOf.reader);
     expect(await page.getByText('Approve or return draft decision records (never your own)').count()).toBe(1);
     assertClean();
     await context.close();
@@ -58,7 +69,7 @@ describe('signing in as each demo role', () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.manager);
     await page.getByRole('heading', { level: 1, name: organizationNames.ridgeback }).waitFor();
-    expect(await navigationItems(page)).toEqual(['Overview']);
+    expect(await navigationItems(page)).toEqual(navigationOf.reader);
     expect(await page.getByRole('link', { name: 'Manage people' }).count()).toBe(0);
     await screenshot(page, 'home-manager');
 
@@ -74,7 +85,7 @@ describe('signing in as each demo role', () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.consultant);
     await page.getByRole('heading', { level: 1, name: organizationNames.ridgeback }).waitFor();
-    expect(await navigationItems(page)).toEqual(['Overview']);
+    expect(await navigationItems(page)).toEqual(navigationOf.reader);
 
     const switcher = page.getByLabel('Organization', { exact: true });
     const options = await switcher.locator('option').allInnerTexts();

@@ -13,6 +13,7 @@ export function ArchiveToggle({
   what,
   consequence,
   onChange,
+  onDone,
   size = 'sm',
 }: {
   archived: boolean;
@@ -23,6 +24,8 @@ export function ArchiveToggle({
   /** What archiving means for this kind of record, in a sentence. */
   consequence: string;
   onChange: (archived: boolean, reason: string | undefined) => Promise<unknown>;
+  /** Told in words once the change is saved ("Site “Kiln yard” archived."), for a status message. */
+  onDone?: (message: string) => void;
   size?: 'sm' | 'md';
 }) {
   const [open, setOpen] = useState(false);
@@ -41,7 +44,10 @@ export function ArchiveToggle({
         schema={archiveRequest}
         reasonLabel="Reason (optional)"
         reasonHint="Kept in the audit trail with your name."
-        onConfirm={(reason) => onChange(!archived, reason)}
+        onConfirm={async (reason) => {
+          await onChange(!archived, reason);
+          onDone?.(`${what[0].toUpperCase()}${what.slice(1)} “${name}” ${archived ? 'brought back' : 'archived'}.`);
+        }}
       />
     </>
   );

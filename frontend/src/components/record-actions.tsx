@@ -9,6 +9,7 @@ export function RecordActions({
   consequence,
   onEdit,
   onArchive,
+  onDone,
 }: {
   name: string;
   what: string;
@@ -16,6 +17,7 @@ export function RecordActions({
   consequence: string;
   onEdit?: () => void;
   onArchive: (archived: boolean, reason: string | undefined) => Promise<unknown>;
+  onDone?: (message: string) => void;
 }) {
   return (
     <div className="flex justify-end gap-1.5">
@@ -24,7 +26,7 @@ export function RecordActions({
           Edit
         </Button>
       )}
-      <ArchiveToggle archived={archived} name={name} what={what} consequence={consequence} onChange={onArchive} />
+      <ArchiveToggle archived={archived} name={name} what={what} consequence={consequence} onChange={onArchive} onDone={onDone} />
     </div>
   );
 }

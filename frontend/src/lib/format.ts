@@ -29,7 +29,6 @@ export function formatDateTime(value: string | number | Date | null | undefined)
 }
 
 const calendarDateFormat = new Intl.DateTimeFormat(undefined, { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' });
-const weekdayFormat = new Intl.DateTimeFormat(undefined, { weekday: 'short', timeZone: 'UTC' });
 
 /**
  * A calendar date from the API (`2024-09-02`, no time zone) as "2 Sep 2024". Read as UTC
@@ -39,12 +38,6 @@ export function formatCalendarDate(value: string | null | undefined): string {
   if (!value) return '—';
   const date = new Date(`${value.slice(0, 10)}T00:00:00Z`);
   return Number.isNaN(date.getTime()) ? value : calendarDateFormat.format(date);
-}
-
-/** "Mon" for a calendar date (UTC, like formatCalendarDate). */
-export function formatWeekday(value: string): string {
-  const date = new Date(`${value.slice(0, 10)}T00:00:00Z`);
-  return Number.isNaN(date.getTime()) ? '' : weekdayFormat.format(date);
 }
 
 /**

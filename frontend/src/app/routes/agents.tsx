@@ -60,11 +60,11 @@ export function Component() {
           )}
         </div>
         <ListToolbar params={agentParams} label="Filter agents" searchLabel="Search name, CAS number or notes">
-          <FilterSelect params={agentParams} name="kind" label="Kind" options={kindOptions} />
+          <FilterSelect params={agentParams} name="kind" label="Kind" options={kindOptions} className="w-52" />
         </ListToolbar>
         <QueryState query={agents} loading="Loading agents…" errorTitle="Could not load the agents">
           {(page) => (
-            <AgentsTable organizationId={organizationId} page={page} params={agentParams} busy={agents.isPlaceholderData} canEdit={canEdit} onEdit={setEditingAgent} />
+            <AgentsTable organizationId={organizationId} page={page} params={agentParams} busy={agents.isPlaceholderData} canEdit={canEdit} onEdit={setEditingAgent} onOutcome={setSaved} />
           )}
         </QueryState>
       </section>
@@ -88,7 +88,7 @@ export function Component() {
         </ListToolbar>
         <QueryState query={entries} loading="Loading the OEL list…" errorTitle="Could not load the OEL list">
           {(page) => (
-            <OelEntriesTable organizationId={organizationId} page={page} params={oelParams} busy={entries.isPlaceholderData} canEdit={canEdit} onEdit={setEditingEntry} />
+            <OelEntriesTable organizationId={organizationId} page={page} params={oelParams} busy={entries.isPlaceholderData} canEdit={canEdit} onEdit={setEditingEntry} onOutcome={setSaved} />
           )}
         </QueryState>
       </section>

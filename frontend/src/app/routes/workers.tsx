@@ -67,6 +67,7 @@ export function Component() {
               canEdit={canEdit}
               canSeeNames={canSeeNames}
               onEdit={setEditing}
+              onOutcome={setSaved}
             />
           )}
         </QueryState>

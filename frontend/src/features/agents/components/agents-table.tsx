@@ -20,12 +20,14 @@ export function AgentsTable({
   busy,
   canEdit,
   onEdit,
+  onOutcome,
 }: {
   organizationId: string;
   page: ListPage<AgentView>;
   params: ListParams;
   busy: boolean;
   canEdit: boolean;
+  onOutcome: (message: string) => void;
   onEdit: (agent: AgentView) => void;
 }) {
   const archive = useArchiveAgent(organizationId);
@@ -56,6 +58,7 @@ export function AgentsTable({
                       what="agent"
                       archived={agent.archived}
                       consequence="It leaves the pick lists; groups, limits and results that use it stay. An agent of a group in use cannot be archived."
+                      onDone={onOutcome}
                       onEdit={() => onEdit(agent)}
                       onArchive={(archived, reason) => archive.mutateAsync({ agentId: agent.id, archived, reason })}
                     />
@@ -65,7 +68,7 @@ export function AgentsTable({
             ]
           : []),
       ]),
-    [canEdit, onEdit, archive.mutateAsync],
+    [canEdit, onEdit, onOutcome, archive.mutateAsync],
   );
   const table = useServerListTable({ columns, page, params, getRowId: (agent) => String(agent.id) });
   const filtered = Boolean(params.q || params.filter('archived') || params.filter('kind'));

@@ -21,12 +21,14 @@ export function OelEntriesTable({
   busy,
   canEdit,
   onEdit,
+  onOutcome,
 }: {
   organizationId: string;
   page: ListPage<OelEntryView>;
   params: ListParams;
   busy: boolean;
   canEdit: boolean;
+  onOutcome: (message: string) => void;
   onEdit: (entry: OelEntryView) => void;
 }) {
   const archive = useArchiveOelEntry(organizationId);
@@ -56,6 +58,7 @@ export function OelEntriesTable({
                       what="limit"
                       archived={entry.archived}
                       consequence="It leaves the list offered when setting up a group; groups that took this limit keep their copy."
+                      onDone={onOutcome}
                       onEdit={() => onEdit(entry)}
                       onArchive={(archived, reason) => archive.mutateAsync({ entryId: entry.id, archived, reason })}
                     />
@@ -65,7 +68,7 @@ export function OelEntriesTable({
             ]
           : []),
       ]),
-    [canEdit, onEdit, archive.mutateAsync],
+    [canEdit, onEdit, onOutcome, archive.mutateAsync],
   );
   const table = useServerListTable({ columns, page, params, getRowId: (entry) => String(entry.id) });
   const filtered = Boolean(params.q || params.filter('archived') || params.filter('agentId'));

@@ -65,7 +65,11 @@ export function OelEntryForm({
     <form noValidate onSubmit={submit} className="space-y-3">
       <SelectField
         label="Agent"
-        options={agents.map((agent) => ({ value: String(agent.id), label: agent.name }))}
+        options={[
+          ...agents.map((agent) => ({ value: String(agent.id), label: agent.name })),
+          // An entry of an archived agent keeps its agent in the list while it is edited.
+          ...(entry && !agents.some((agent) => agent.id === entry.agentId) ? [{ value: String(entry.agentId), label: `${entry.agentName} (archived)` }] : []),
+        ]}
         error={errors.agentId?.message}
         {...form.register('agentId', {
           setValueAs: numberOrUndefined,

@@ -125,7 +125,11 @@ function lineLabel(y: number, text: string, colour: string, side: 'left' | 'righ
 }
 
 /** OEL (and action level) as horizontal lines with labels, for charts whose y axis is the value on a log scale. */
-function limitLines(assessment: Assessment, extra: Array<{ value: number; label: string; colour: string; dash: 'solid' | 'dash' | 'dot'; side?: 'left' | 'right' }> = []) {
+function limitLines(
+  assessment: Assessment,
+  extra: Array<{ value: number; label: string; colour: string; dash: 'solid' | 'dash' | 'dot'; side?: 'left' | 'right' }> = [],
+  actionLevelSide: 'left' | 'right' = 'right',
+) {
   const { group } = assessment;
   const unit = unitLabel(group.oelUnit);
   const lines: Array<{ value: number; label: string; colour: string; dash: 'solid' | 'dash' | 'dot'; side?: 'left' | 'right' }> = [
@@ -134,7 +138,7 @@ function limitLines(assessment: Assessment, extra: Array<{ value: number; label:
   ];
   if (group.actionLevel !== null) {
     const level = group.actionLevel;
-    lines.push({ value: level, label: `Action level ${formatFigure(level)} ${unit}`, colour: actionColour, dash: 'dot' });
+    lines.push({ value: level, label: `Action level ${formatFigure(level)} ${unit}`, colour: actionColour, dash: 'dot', side: actionLevelSide });
   }
   return {
     shapes: lines.map((line) => horizontalLine(line.value, line.colour, line.dash)),
@@ -194,9 +198,12 @@ function probabilityFigure(assessment: Assessment): { data: Data[]; layout: Part
     plotted('Result', detected, detectedMarker(), ''),
   ];
   if (censored.length > 0) data.push(plotted('Non-detect (at its fitted value)', censored, nonDetectMarker(), 'Non-detect, plotted at '));
-  const { values: lineValues, ...lines } = limitLines(assessment, [
-    { value: classical.p95, label: `P95 ${formatFigure(classical.p95)} ${unit}`, colour: lineColour(), dash: 'dash', side: 'left' },
-  ]);
+  // On a probability plot the highest results sit on the right, near the limit lines: their labels go left.
+  const { values: lineValues, ...lines } = limitLines(
+    assessment,
+    [{ value: classical.p95, label: `P95 ${formatFigure(classical.p95)} ${unit}`, colour: lineColour(), dash: 'dash', side: 'left' }],
+    'left',
+  );
   return {
     data,
     layout: baseLayout({

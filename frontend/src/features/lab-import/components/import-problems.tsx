@@ -10,7 +10,7 @@ export function ImportProblems({ problems, title = 'The file was not imported' }
       <p className="font-semibold">
         {title}: {problems.length} problem{problems.length === 1 ? '' : 's'}. Nothing was stored.
       </p>
-      <p>Correct the file (or the mapping below) and try again; every row is checked each time.</p>
+      <p>Correct the file (or the column mapping) and try again; every row is checked each time.</p>
       <div className="max-h-96 overflow-auto rounded border border-red-200 bg-white text-slate-900">
         <table className="table-dense w-full">
           <caption className="sr-only">Problems by row and column</caption>

@@ -125,9 +125,8 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
             </table>
             {sheet.rows.length === 0 && <p className="py-4 text-sm text-slate-600">The plan has no picks: the group has no members on the plan's days.</p>}
           </div>
-          <footer className="sheet-footer flex flex-wrap justify-between gap-2 text-[11px] text-slate-600">
-            <span>{sheet.cautions.join(' ')}</span>
-            <span className="tabular-nums">Printed from Bellwether, {formatDateTime(sheet.generatedAt)}</span>
+          <footer className="sheet-footer text-[11px] text-slate-600">
+            {sheet.cautions.join(' ')} <span className="tabular-nums">Printed from Bellwether, {formatDateTime(sheet.generatedAt)}.</span>
           </footer>
         </section>
       ))}

@@ -20,12 +20,14 @@ export function SitesTable({
   busy,
   canEdit,
   onEdit,
+  onOutcome,
 }: {
   organizationId: string;
   page: ListPage<SiteView>;
   params: ListParams;
   busy: boolean;
   canEdit: boolean;
+  onOutcome: (message: string) => void;
   onEdit: (site: SiteView) => void;
 }) {
   const archive = useArchiveSite(organizationId);
@@ -62,6 +64,7 @@ export function SitesTable({
                       what="site"
                       archived={site.archived}
                       consequence="It leaves the pick lists; its exposure groups and their results stay. A site with groups in use cannot be archived."
+                      onDone={onOutcome}
                       onEdit={() => onEdit(site)}
                       onArchive={(archived, reason) => archive.mutateAsync({ siteId: site.id, archived, reason })}
                     />
@@ -71,7 +74,7 @@ export function SitesTable({
             ]
           : []),
       ]),
-    [canEdit, onEdit, archive.mutateAsync],
+    [canEdit, onEdit, onOutcome, archive.mutateAsync],
   );
   const table = useServerListTable({ columns, page, params, getRowId: (site) => String(site.id) });
 

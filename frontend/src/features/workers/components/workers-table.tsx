@@ -22,6 +22,7 @@ export function WorkersTable({
   canEdit,
   canSeeNames,
   onEdit,
+  onOutcome,
 }: {
   organizationId: string;
   page: ListPage<WorkerListItem>;
@@ -29,6 +30,7 @@ export function WorkersTable({
   busy: boolean;
   canEdit: boolean;
   canSeeNames: boolean;
+  onOutcome: (message: string) => void;
   onEdit: (worker: WorkerListItem) => void;
 }) {
   const archive = useArchiveWorker(organizationId);
@@ -76,6 +78,7 @@ export function WorkersTable({
                       what="worker"
                       archived={worker.archived}
                       consequence="The worker is left out of new sampling plan draws and pick lists; memberships and results stay."
+                      onDone={onOutcome}
                       onEdit={() => onEdit(worker)}
                       onArchive={(archived, reason) => archive.mutateAsync({ workerId: worker.id, archived, reason })}
                     />
@@ -85,7 +88,7 @@ export function WorkersTable({
             ]
           : []),
       ]),
-    [base, canEdit, canSeeNames, onEdit, archive.mutateAsync],
+    [base, canEdit, canSeeNames, onEdit, onOutcome, archive.mutateAsync],
   );
   const table = useServerListTable({ columns, page, params, getRowId: (worker) => String(worker.id) });
   const filtered = Boolean(params.q || params.filter('archived') || params.filter('groupId'));

@@ -18,7 +18,8 @@ export default defineConfig({
   plugins: [react(), tailwindcss()],
   resolve: { alias: aliases },
   build: {
-    outDir: here('./dist/client'),
+    // CLIENT_DIR lets parallel work build into a private folder; the server reads the same variable.
+    outDir: process.env.CLIENT_DIR ?? here('./dist/client'),
     emptyOutDir: true,
     sourcemap: false,
     chunkSizeWarningLimit: 5000,

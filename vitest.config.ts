@@ -1,5 +1,5 @@
 import { defineConfig } from 'vitest/config';
-import { aliases } from './vite.config';
+import { aliases } from './vite.config.ts';
 
 export default defineConfig({
   resolve: { alias: aliases },
@@ -18,6 +18,8 @@ export default defineConfig({
           testTimeout: 120_000,
           hookTimeout: 120_000,
           fileParallelism: false,
+          // A page waits for the server (and a 300 ms search pause); the default 1 s poll is too short on a busy machine.
+          expect: { poll: { timeout: 10_000 } },
         },
       },
     ],

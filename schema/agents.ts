@@ -5,7 +5,11 @@ import { z } from 'zod';
 import { archived, id, timestamp, timestamps } from './columns';
 import { organizationReference } from './organizations';
 
-export const agentKinds = ['noise', 'chemical'] as const;
+/**
+ * `mixture`: agents with similar (additive) effects judged together by the mixture index
+ * Σ Cᵢ/OELᵢ (schema/mixtures.ts); created through the mixtures list, never typed in as an agent.
+ */
+export const agentKinds = ['noise', 'chemical', 'mixture'] as const;
 export type AgentKind = (typeof agentKinds)[number];
 
 /**
@@ -13,7 +17,7 @@ export type AgentKind = (typeof agentKinds)[number];
  * criterion (100 % = the limit): unlike dB(A), a dose is on a linear scale, so noise results can be
  * judged with the same lognormal statistics as concentrations.
  */
-export const exposureUnits = ['dBA', 'dose-percent', 'mg/m3', 'ug/m3', 'ppm', 'f/cc'] as const;
+export const exposureUnits = ['dBA', 'dose-percent', 'mg/m3', 'ug/m3', 'ppm', 'f/cc', 'index'] as const;
 export type ExposureUnit = (typeof exposureUnits)[number];
 export const exposureUnitLabels: Record<ExposureUnit, string> = {
   dBA: 'dB(A)',
@@ -22,12 +26,15 @@ export const exposureUnitLabels: Record<ExposureUnit, string> = {
   'ug/m3': 'µg/m³',
   ppm: 'ppm',
   'f/cc': 'fibres/cm³',
+  // The mixture index Σ Cᵢ/OELᵢ: dimensionless, judged against 1 (docs/decisions/023-hearing-protectors-and-mixtures.md).
+  index: '× limit (mixture index)',
 };
 
-/** Which units fit which kind of agent (noise in dB(A) or % dose; chemicals as concentrations). */
-export const unitsForAgentKind: Record<'noise' | 'chemical', readonly ExposureUnit[]> = {
+/** Which units fit which kind of agent (noise in dB(A) or % dose; chemicals as concentrations; a mixture as its index). */
+export const unitsForAgentKind: Record<AgentKind, readonly ExposureUnit[]> = {
   noise: ['dBA', 'dose-percent'],
   chemical: ['mg/m3', 'ug/m3', 'ppm', 'f/cc'],
+  mixture: ['index'],
 };
 
 /** Averaging times of a limit: full-shift TWA, short-term (15 min) and ceiling. */
@@ -103,10 +110,7 @@ export const oelEntries = sqliteTable(
   ],
 );
 
-const casNumber = z
-  .string()
-  .trim()
-  .refine(isValidCasNumber, 'Write the CAS number as digits-digits-check digit, e.g. 14808-60-7, with a correct check digit');
+const casNumber = z.string().trim().refine(isValidCasNumber, 'Write the CAS number as digits-digits-check digit, e.g. 14808-60-7, with a correct check digit');
 
 export const agentSelect = createSelectSchema(agents);
 const agentFields = createInsertSchema(agents, {
@@ -118,14 +122,18 @@ const agentFields = createInsertSchema(agents, {
 
 /** Create an agent; noise carries no CAS number or molecular weight. */
 export const agentCreate = agentFields.superRefine((agent, context) => {
+  if (agent.kind === 'mixture')
+    context.addIssue({ code: 'custom', path: ['kind'], message: 'Define a mixture on the mixtures list (it needs its component agents)' });
   if (agent.kind === 'noise') {
     if (agent.casNumber != null) context.addIssue({ code: 'custom', path: ['casNumber'], message: 'Noise has no CAS number' });
-    if (agent.molecularWeight != null)
-      context.addIssue({ code: 'custom', path: ['molecularWeight'], message: 'Noise has no molecular weight' });
+    if (agent.molecularWeight != null) context.addIssue({ code: 'custom', path: ['molecularWeight'], message: 'Noise has no molecular weight' });
   }
 });
 /** Edit an agent; the service checks the noise/chemical rule against the stored row. */
-export const agentUpdate = agentFields.partial().extend({ archived: z.boolean().optional() });
+export const agentUpdate = agentFields
+  .partial()
+  .extend({ archived: z.boolean().optional() })
+  .refine((agent) => agent.kind !== 'mixture', { path: ['kind'], message: 'Define a mixture on the mixtures list (it needs its component agents)' });
 
 export const oelEntrySelect = createSelectSchema(oelEntries);
 export const oelEntryCreate = createInsertSchema(oelEntries, {

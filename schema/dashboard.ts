@@ -46,7 +46,12 @@ export interface OrganizationDashboard {
   /** The server's date (UTC) the review windows are counted from. */
   today: string;
   /** One row per site; `cells[c]` lists the groups in category c. */
-  matrix: Array<{ siteId: number; siteName: string; cells: [GroupReference[], GroupReference[], GroupReference[], GroupReference[], GroupReference[]]; undecided: GroupReference[] }>;
+  matrix: Array<{
+    siteId: number;
+    siteName: string;
+    cells: [GroupReference[], GroupReference[], GroupReference[], GroupReference[], GroupReference[]];
+    undecided: GroupReference[];
+  }>;
   groups: DashboardGroup[];
   unacceptable: DashboardGroup[];
   uncertain: DashboardGroup[];

@@ -65,7 +65,10 @@ export const decisionRecords = sqliteTable(
     /** How the review date was proposed, in words (EN 689 interval, organization setting, or set by hand). */
     reviewDateSource: text('review_date_source').notNull(),
     prior: text('prior', { enum: priorNames }).$type<PriorName>().notNull().default('reference'),
-    exclusions: text('exclusions', { mode: 'json' }).$type<DecisionExclusion[]>().notNull().default(sql`'[]'`),
+    exclusions: text('exclusions', { mode: 'json' })
+      .$type<DecisionExclusion[]>()
+      .notNull()
+      .default(sql`'[]'`),
     // Frozen at approval (null before).
     frozenInputs: text('frozen_inputs', { mode: 'json' }).$type<FrozenInputs>(),
     dataHash: text('data_hash'),
@@ -92,6 +95,8 @@ export const decisionRecords = sqliteTable(
     uniqueIndex('decision_records_id_organization_idx').on(table.id, table.organizationId),
     index('decision_records_group_idx').on(table.exposureGroupId, table.status),
     index('decision_records_organization_idx').on(table.organizationId, table.status),
+    // The dashboard's recent decisions (newest first, LIMIT 10) walk this instead of sorting every record of the organization.
+    index('decision_records_organization_updated_idx').on(table.organizationId, table.updatedAt, table.id),
     check('decision_records_category_range', sql`${table.category} BETWEEN 0 AND 4`),
   ],
 );

@@ -33,7 +33,10 @@ export const exposureGroups = sqliteTable(
     siteId: integer('site_id').notNull(),
     name: text('name').notNull(),
     processArea: text('process_area').notNull().default(''),
-    jobTitles: text('job_titles', { mode: 'json' }).$type<string[]>().notNull().default(sql`'[]'`),
+    jobTitles: text('job_titles', { mode: 'json' })
+      .$type<string[]>()
+      .notNull()
+      .default(sql`'[]'`),
     tasks: text('tasks').notNull().default(''),
     agentId: integer('agent_id').notNull(),
     oelEntryId: integer('oel_entry_id'),
@@ -47,9 +50,7 @@ export const exposureGroups = sqliteTable(
     /** For noise groups: the criteria set the group is judged with. */
     noiseCriteriaSet: text('noise_criteria_set', { enum: noiseCriteriaSets }),
     exposureProfile: text('exposure_profile').notNull().default(''),
-    extendedShiftAdjustment: text('extended_shift_adjustment', { enum: extendedShiftAdjustments })
-      .notNull()
-      .default('none'),
+    extendedShiftAdjustment: text('extended_shift_adjustment', { enum: extendedShiftAdjustments }).notNull().default('none'),
     /**
      * Goes up by one with every change to the group's shift results (entered, imported, voided,
      * restored), with the time in `results_changed_at`: a decision record stores the version it was

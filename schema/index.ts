@@ -16,3 +16,8 @@ export * from './lab-imports';
 export * from './shift-results';
 export * from './noise-logs';
 export * from './decision-records';
+export * from './notifications';
+export * from './worker-letters';
+export * from './hearing-protectors';
+export * from './mixtures';
+export * from './noise-estimates';

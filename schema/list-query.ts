@@ -22,9 +22,7 @@ export const queryId = z.coerce.number().int('Use a whole number').positive('Use
  */
 export function sortParameter<const Field extends string>(fields: readonly [Field, ...Field[]], fallback: Field | `-${Field}`) {
   const allowed = [...fields, ...fields.map((field) => `-${field}` as const)] as [Field | `-${Field}`, ...Array<Field | `-${Field}`>];
-  return z
-    .enum(allowed, { message: `Sort by one of ${fields.join(', ')} (prefix - for descending)` })
-    .default(fallback as never);
+  return z.enum(allowed, { message: `Sort by one of ${fields.join(', ')} (prefix - for descending)` }).default(fallback as never);
 }
 
 /** Paging and free-text search, the same on every list. */

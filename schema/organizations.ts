@@ -34,6 +34,16 @@ export const organizationSettings = z.object({
    * guidance by GM/OEL (stats/en689.ts en689ReassessmentMonths: 36, 24, 18 or 12 months, from memory).
    */
   reviewIntervalMonths: z.number().int().min(1).max(120).optional(),
+  /**
+   * Hearing-protector assessment (docs/decisions/023-hearing-protectors-and-mixtures.md): the action
+   * level Lact the level at the ear is judged against, dB(A). Default 85: the upper exposure action
+   * value of Directive 2003/10/EC Art. 3 and NIOSH's REL (1998); EN 458 takes Lact from the national rules.
+   */
+  protectorActionLevelDb: z.number().min(60).max(100).default(85),
+  /** EN 458 band edges below Lact, dB (from memory): acceptable within 5, good within 10, over-protection beyond 15. */
+  protectorAcceptableMarginDb: z.number().positive().max(30).default(5),
+  protectorGoodMarginDb: z.number().positive().max(30).default(10),
+  protectorOverProtectionMarginDb: z.number().positive().max(40).default(15),
 });
 export type OrganizationSettings = z.infer<typeof organizationSettings>;
 
@@ -68,10 +78,7 @@ export const memberships = sqliteTable(
     active: integer('active', { mode: 'boolean' }).notNull().default(true),
     ...timestamps(),
   },
-  (table) => [
-    uniqueIndex('memberships_organization_user_idx').on(table.organizationId, table.userId),
-    index('memberships_user_idx').on(table.userId),
-  ],
+  (table) => [uniqueIndex('memberships_organization_user_idx').on(table.organizationId, table.userId), index('memberships_user_idx').on(table.userId)],
 );
 
 /**
@@ -134,9 +141,7 @@ export const invitationView = invitationSelect
   .extend({ invitedBy: z.string(), status: z.enum(['pending', 'accepted', 'expired']) });
 
 /** What the invitee sees before accepting (`GET /api/invitations/:token`). */
-export const invitationPreview = invitationSelect
-  .pick({ email: true, role: true, expiresAt: true })
-  .extend({ organizationName: z.string() });
+export const invitationPreview = invitationSelect.pick({ email: true, role: true, expiresAt: true }).extend({ organizationName: z.string() });
 
 export type Organization = typeof organizations.$inferSelect;
 export type OrganizationCreate = z.infer<typeof organizationCreate>;

@@ -125,18 +125,13 @@ const datesInOrder = <Shape extends { startDate?: string; endDate?: string }>(pl
   if (plan.startDate === undefined || plan.endDate === undefined || !isRealDate(plan.startDate) || !isRealDate(plan.endDate)) return;
   const days = daysBetween(plan.startDate, plan.endDate);
   if (days < 0) context.addIssue({ code: 'custom', path: ['endDate'], message: 'The end date is before the start date' });
-  else if (days > maximumPlanDays)
-    context.addIssue({ code: 'custom', path: ['endDate'], message: `A plan spans at most ${maximumPlanDays} days` });
+  else if (days > maximumPlanDays) context.addIssue({ code: 'custom', path: ['endDate'], message: `A plan spans at most ${maximumPlanDays} days` });
 };
 
 /** Create a plan; without a seed the server makes one. */
 export const samplingPlanCreate = samplingPlanFields.partial({ seed: true }).superRefine(datesInOrder);
 /** Edit a plan. Changing the target, dates or weekends redraws with the same seed; title and notes do not. */
-export const samplingPlanUpdate = samplingPlanFields
-  .omit({ seed: true })
-  .partial()
-  .extend({ archived: z.boolean().optional() })
-  .superRefine(datesInOrder);
+export const samplingPlanUpdate = samplingPlanFields.omit({ seed: true }).partial().extend({ archived: z.boolean().optional() }).superRefine(datesInOrder);
 /** Redraw with a new seed (made by the server unless given); `reason` goes to the audit trail. */
 export const samplingPlanRedraw = z.object({
   seed: samplingPlanFields.shape.seed.optional(),

@@ -59,6 +59,26 @@ export interface ShiftResultDetails {
     molarVolumeLitres: number | null;
     source: string;
   };
+  /** For a mixture index (source `mixture`): the formula, its source and each component used. */
+  mixture?: {
+    mixtureId: number;
+    formula: string;
+    source: string;
+    components: Array<{
+      agentId: number;
+      agentName: string;
+      resultId: number;
+      exposureGroupId: number;
+      value: number;
+      unit: ExposureUnit;
+      nonDetect: boolean;
+      oelValue: number;
+      ratio: number;
+    }>;
+    /** Non-detect components at 0 (lower) and at their detection limit (upper = the stored value). */
+    lowerBound: number;
+    upperBound: number;
+  };
   /** Things a reviewer should look at (e.g. a bound used in place of a value). */
   flags: string[];
 }

@@ -18,6 +18,11 @@ export const workers = sqliteTable(
     code: text('code').notNull(),
     name: text('name'),
     jobTitle: text('job_title').notNull().default(''),
+    /**
+     * Where letters to the worker are e-mailed (worker letters, docs/decisions/024); optional. Personal
+     * data like the name: sent only to roles holding `workerNames:read`, never written to the audit trail.
+     */
+    email: text('email'),
     archived: archived(),
     ...timestamps(),
   },
@@ -67,7 +72,18 @@ export const workerCreate = createInsertSchema(workers, {
   code: workerCode,
   name: (schema) => schema.trim().max(120),
   jobTitle: (schema) => schema.trim().max(120),
-}).pick({ code: true, name: true, jobTitle: true });
+})
+  .pick({ code: true, name: true, jobTitle: true })
+  .extend({
+    // Blank clears the address; otherwise it must look like one.
+    email: z
+      .string()
+      .trim()
+      .max(254, 'Use at most 254 characters')
+      .pipe(z.union([z.literal(''), z.email('Enter an e-mail address such as name@example.com')]))
+      .nullable()
+      .optional(),
+  });
 export const workerUpdate = workerCreate.partial().extend({ archived: workerSelect.shape.archived.optional() });
 
 export const groupMembershipSelect = createSelectSchema(groupMemberships);

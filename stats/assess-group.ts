@@ -164,9 +164,7 @@ export function checkGroupInput(input: AssessGroupInput): void {
   });
   const nonDetects = values.filter((v) => v.nonDetect).length;
   if (nonDetects / values.length > ASSESSMENT_RULES.maxNonDetectShare) {
-    refuse(
-      `${nonDetects} of ${values.length} results are non-detects (rule: more than 80 % non-detects); too little is measured to fit a distribution`,
-    );
+    refuse(`${nonDetects} of ${values.length} results are non-detects (rule: more than 80 % non-detects); too little is measured to fit a distribution`);
   }
   const detected = values.filter((v) => !v.nonDetect).map((v) => v.value);
   if (detected.length < ASSESSMENT_RULES.minDetected) {
@@ -262,9 +260,7 @@ function fitCheckFor(values: readonly ShiftValue[]): FitCheck {
     warning =
       `The results do not follow a lognormal distribution well (Shapiro–Wilk on the logs: W = ${shapiroWilkLog.w.toFixed(3)}, p ${shapiroWilkLog.p < 0.001 ? '' : '= '}${formatP(shapiroWilkLog.p)}). ` +
       'The figures below assume that they do, so treat them with caution and look at the probability plot.' +
-      (shapiroWilkRaw.p >= ASSESSMENT_RULES.fitWarningP
-        ? ` The raw values fit a normal distribution better (p = ${formatP(shapiroWilkRaw.p)}).`
-        : '');
+      (shapiroWilkRaw.p >= ASSESSMENT_RULES.fitWarningP ? ` The raw values fit a normal distribution better (p = ${formatP(shapiroWilkRaw.p)}).` : '');
   }
   return {
     shapiroWilkLog,
@@ -416,9 +412,7 @@ export interface NamedGroupInput extends AssessGroupInput {
   group: string;
 }
 
-export type NamedGroupResult =
-  | { group: string; assessment: GroupAssessment; error: null }
-  | { group: string; assessment: null; error: string };
+export type NamedGroupResult = { group: string; assessment: GroupAssessment; error: null } | { group: string; assessment: null; error: string };
 
 /**
  * Assess several groups; a group the rules refuse gets its error message and does not stop the

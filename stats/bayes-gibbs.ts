@@ -107,10 +107,7 @@ function prepareData(values: readonly ShiftValue[]): PreparedData {
     }
   }
   // Start estimate: left-censored at limit/√2, interval-censored at the geometric midpoint (common practice).
-  const filled = [
-    ...detected,
-    ...censored.map((c) => (c.lower === -Infinity ? c.upper - 0.5 * Math.LN2 : (c.lower + c.upper) / 2)),
-  ];
+  const filled = [...detected, ...censored.map((c) => (c.lower === -Infinity ? c.upper - 0.5 * Math.LN2 : (c.lower + c.upper) / 2))];
   const startMean = filled.reduce((a, b) => a + b, 0) / filled.length;
   const startSd = Math.sqrt(filled.reduce((a, y) => a + (y - startMean) ** 2, 0) / (filled.length - 1));
   return {
@@ -156,10 +153,7 @@ function checkSettings(settings: McmcSettings): Required<McmcSettings> {
  * (Gelman & Rubin 1992) and run on seeded MT19937 streams, so the same seed gives the same draws.
  * The loop uses typed arrays and allocates nothing.
  */
-export function sampleLognormalPosterior(
-  values: readonly ShiftValue[],
-  options: { prior?: BayesPriorChoice; settings?: McmcSettings } = {},
-): PosteriorDraws {
+export function sampleLognormalPosterior(values: readonly ShiftValue[], options: { prior?: BayesPriorChoice; settings?: McmcSettings } = {}): PosteriorDraws {
   const data = prepareData(values);
   const settings = checkSettings(options.settings ?? {});
   const prior = resolveBayesPrior(options.prior);

@@ -221,7 +221,9 @@ export function trigamma(x: number): number {
   const inverse = 1 / value;
   const inverseSquare = inverse * inverse;
   const series =
-    inverse + inverseSquare / 2 + inverse * inverseSquare * (1 / 6 - inverseSquare * (1 / 30 - inverseSquare * (1 / 42 - inverseSquare * (1 / 30 - (inverseSquare * 5) / 66))));
+    inverse +
+    inverseSquare / 2 +
+    inverse * inverseSquare * (1 / 6 - inverseSquare * (1 / 30 - inverseSquare * (1 / 42 - inverseSquare * (1 / 30 - (inverseSquare * 5) / 66))));
   return result + series;
 }
 

@@ -138,6 +138,9 @@ export class TruncationPlan {
  * the normal distribution", Applied Statistics 37:477–484 (PPND16, relative error about 1e-16; the
  * algorithm behind R's qnorm). Used in the sampling loop, so written with Math.log/Math.sqrt only.
  */
+// The coefficients are printed as in AS 241 (20 significant digits); the doubles they round to are what
+// the algorithm uses, so the literal's extra digits are kept for checking against the paper.
+/* eslint-disable no-loss-of-precision */
 export function inverseStandardNormal(p: number): number {
   const q = p - 0.5;
   if (Math.abs(q) > 0.425) return inverseStandardNormalTail(p, q);
@@ -153,10 +156,9 @@ export function inverseStandardNormal(p: number): number {
           1.3314166789178437745e2) *
           r +
           3.387132872796366608)) /
-      (((((((5.2264952788528545610e3 * r + 2.8729085735721942674e4) * r + 3.9307895800092710610e4) * r + 2.1213794301586595867e4) * r +
-        5.3941960214247511077e3) *
+      (((((((5.226495278852854561e3 * r + 2.8729085735721942674e4) * r + 3.930789580009271061e4) * r + 2.1213794301586595867e4) * r + 5.3941960214247511077e3) *
         r +
-        6.8718700749205790830e2) *
+        6.871870074920579083e2) *
         r +
         4.2313330701600911252e1) *
         r +
@@ -210,3 +212,4 @@ function inverseStandardNormalTail(p: number, q: number): number {
   }
   return q < 0 ? -x : x;
 }
+/* eslint-enable no-loss-of-precision */

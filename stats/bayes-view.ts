@@ -89,11 +89,7 @@ export function bayesianView(values: readonly ShiftValue[], options: BayesianVie
 }
 
 /** Summaries, category probabilities, judgement and diagnostics of posterior draws (see bayesianView). */
-export function summarizePosterior(
-  draws: PosteriorDraws,
-  oel: number | null,
-  unacceptableThreshold = DEFAULT_BAYES_UNACCEPTABLE_THRESHOLD,
-): BayesianView {
+export function summarizePosterior(draws: PosteriorDraws, oel: number | null, unacceptableThreshold = DEFAULT_BAYES_UNACCEPTABLE_THRESHOLD): BayesianView {
   const { mu, sigma, chains } = draws;
   const total = mu.length;
   const scratch = new Float64Array(total);

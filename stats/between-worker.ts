@@ -55,12 +55,12 @@ export interface BetweenWorkerAnalysis {
 }
 
 const METHOD =
-  'One-way random-effects ANOVA on ln(values) with Searle\'s n0 for unbalanced groups (Searle, Casella & McCulloch 1992, ' +
-  'Variance Components, chapter 3); R0.95 (Rappaport 1991); probability that a worker\'s mean exceeds the OEL ' +
+  "One-way random-effects ANOVA on ln(values) with Searle's n0 for unbalanced groups (Searle, Casella & McCulloch 1992, " +
+  "Variance Components, chapter 3); R0.95 (Rappaport 1991); probability that a worker's mean exceeds the OEL " +
   '(Lyles, Kupper & Rappaport 1997, from memory)';
 
 const FLAG_RULE =
-  "A worker is flagged when his or her mean log lies outside the 95 % range expected from the other workers " +
+  'A worker is flagged when his or her mean log lies outside the 95 % range expected from the other workers ' +
   '(mean ± 1.96·√(σb² + σw²/n) with the components refitted without that worker) and also at least 2-fold from ' +
   "the others' geometric mean; needs at least 3 workers with 2 or more results.";
 

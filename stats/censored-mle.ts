@@ -62,12 +62,7 @@ export interface CensoredMleOptions {
  * Log-likelihood ℓ(μ, σ) of a normal sample with detected values `detected` and non-detects known
  * only to lie below `censoredBelow` (Cohen 1991, ch. 2). Requires sigma > 0.
  */
-export function censoredNormalLogLikelihood(
-  mu: number,
-  sigma: number,
-  detected: readonly number[],
-  censoredBelow: readonly number[],
-): number {
+export function censoredNormalLogLikelihood(mu: number, sigma: number, detected: readonly number[], censoredBelow: readonly number[]): number {
   if (!(sigma > 0) || !Number.isFinite(mu) || !Number.isFinite(sigma)) {
     throw new RangeError(`censoredNormalLogLikelihood: needs a finite mu and a sigma > 0, got mu ${mu}, sigma ${sigma}`);
   }
@@ -291,11 +286,7 @@ export function censoredNormalMleEstimate(
  *
  * censoredNormalMle([0, 1, 2], []) → mu 1, sigma √(2/3) (the complete-data MLE, divisor n).
  */
-export function censoredNormalMle(
-  detected: readonly number[],
-  censoredBelow: readonly number[],
-  options: CensoredMleOptions = {},
-): CensoredNormalFit {
+export function censoredNormalMle(detected: readonly number[], censoredBelow: readonly number[], options: CensoredMleOptions = {}): CensoredNormalFit {
   const functionName = 'censoredNormalMle';
   const { mu, sigma, iterations } = censoredNormalMleEstimate(detected, censoredBelow, options);
   const information = observedInformation(mu, sigma, detected, censoredBelow);

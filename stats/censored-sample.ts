@@ -38,7 +38,7 @@ export function renamingRangeErrors<T>(inner: string, outer: string, body: () =>
     return body();
   } catch (error) {
     if (error instanceof RangeError && error.message.startsWith(`${inner}:`)) {
-      throw new RangeError(outer + error.message.slice(inner.length));
+      throw new RangeError(outer + error.message.slice(inner.length), { cause: error });
     }
     throw error;
   }

@@ -47,10 +47,7 @@ export function medianOfSorted(sorted: readonly number[]): number {
  * Descriptive statistics of shift results against the OEL (and action level, when given).
  * Requires at least one detected value, every value a finite number > 0, and a finite OEL > 0.
  */
-export function describeShiftValues(
-  values: readonly ShiftValue[],
-  limits: { oel: number; actionLevel?: number },
-): DescriptiveStatistics {
+export function describeShiftValues(values: readonly ShiftValue[], limits: { oel: number; actionLevel?: number }): DescriptiveStatistics {
   const { oel, actionLevel } = limits;
   if (!(oel > 0) || !Number.isFinite(oel)) throw new RangeError(`describeShiftValues: the OEL must be a finite number > 0, got ${oel}`);
   if (actionLevel !== undefined && (!(actionLevel > 0) || !Number.isFinite(actionLevel))) {

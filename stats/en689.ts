@@ -66,11 +66,7 @@ export function en689PreliminaryTest(values: readonly ShiftValue[], oelv: number
  * The statistical test from 6 results on the log-scale summary (GM = exp(ȳ), GSD = exp(s)).
  * `ut` may be passed when the caller already has en689Ut(n) (a batch of groups of one size).
  */
-export function en689StatisticalTest(
-  summary: LogScaleSummary,
-  oelv: number,
-  ut: number = en689Ut(summary.n),
-): { ur: number; ut: number; result: En689Result } {
+export function en689StatisticalTest(summary: LogScaleSummary, oelv: number, ut: number = en689Ut(summary.n)): { ur: number; ut: number; result: En689Result } {
   checkLogScaleSummary('en689StatisticalTest', summary, 6);
   checkOelv('en689StatisticalTest', oelv);
   const ur = (Math.log(oelv) - summary.mean) / summary.sd;
@@ -95,12 +91,7 @@ export function en689ReassessmentMonths(geometricMean: number, oelv: number): nu
  * 6 (on `summary`, which for censored data is the censored-data fit), with the reassessment
  * interval when compliant. `utFor` supplies UT(n) (default en689Ut; a batch may memoize it).
  */
-export function en689Assessment(
-  values: readonly ShiftValue[],
-  summary: LogScaleSummary,
-  oelv: number,
-  utFor: (n: number) => number = en689Ut,
-): En689Outcome {
+export function en689Assessment(values: readonly ShiftValue[], summary: LogScaleSummary, oelv: number, utFor: (n: number) => number = en689Ut): En689Outcome {
   const n = values.length;
   const gm = Math.exp(summary.mean);
   if (n < 3) throw new RangeError(`en689Assessment: at least 3 results are needed, got ${n}`);

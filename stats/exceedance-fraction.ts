@@ -42,12 +42,7 @@ const LOWEST_SCORE = -8.5;
  * One exact one-sided confidence limit of the exceedance fraction at confidence c: the upper limit
  * when `side` is 'upper', the lower when 'lower' (method in the file comment).
  */
-export function exceedanceFractionLimit(
-  summary: LogScaleSummary,
-  oel: number,
-  confidence: number,
-  side: 'upper' | 'lower',
-): number {
+export function exceedanceFractionLimit(summary: LogScaleSummary, oel: number, confidence: number, side: 'upper' | 'lower'): number {
   checkLogScaleSummary('exceedanceFractionLimit', summary, 3);
   checkOel('exceedanceFractionLimit', oel);
   if (!(confidence > 0.5 && confidence < 1)) {

@@ -9,12 +9,7 @@ import type { ExposureCategory } from './types';
  */
 
 /** Upper edges of categories 0, 1, 2 and 3 as fractions of the OEL. */
-export const CATEGORY_UPPER_EDGES: readonly [number, number, number, number] = Object.freeze([0.01, 0.1, 0.5, 1]) as readonly [
-  number,
-  number,
-  number,
-  number,
-];
+export const CATEGORY_UPPER_EDGES: readonly [number, number, number, number] = Object.freeze([0.01, 0.1, 0.5, 1]) as readonly [number, number, number, number];
 
 /**
  * The category of a figure (e.g. the P95 estimate or the UTL) against the OEL.

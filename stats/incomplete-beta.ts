@@ -40,26 +40,10 @@ export function logBetaPowerTerm(x: number, y: number, a: number, b: number): nu
   // One parameter large: ln Γ(big) − ln Γ(a+b) = −small·ln(a+b) − (big − ½)·log1p(small/big) + small
   // + ω(big) − ω(a+b) (Stirling, A&S 6.1.40), so the two large ln Γ never meet in a subtraction.
   if (b >= 10) {
-    return (
-      a * Math.log(x * (a + b)) +
-      b * Math.log(y) +
-      (b - 0.5) * Math.log1p(a / b) -
-      a -
-      logGamma(a) -
-      stirlingCorrection(b) +
-      stirlingCorrection(a + b)
-    );
+    return a * Math.log(x * (a + b)) + b * Math.log(y) + (b - 0.5) * Math.log1p(a / b) - a - logGamma(a) - stirlingCorrection(b) + stirlingCorrection(a + b);
   }
   if (a >= 10) {
-    return (
-      a * Math.log(x) +
-      b * Math.log(y * (a + b)) +
-      (a - 0.5) * Math.log1p(b / a) -
-      b -
-      logGamma(b) -
-      stirlingCorrection(a) +
-      stirlingCorrection(a + b)
-    );
+    return a * Math.log(x) + b * Math.log(y * (a + b)) + (a - 0.5) * Math.log1p(b / a) - b - logGamma(b) - stirlingCorrection(a) + stirlingCorrection(a + b);
   }
   return a * Math.log(x) + b * Math.log(y) + logGamma(a + b) - logGamma(a) - logGamma(b);
 }

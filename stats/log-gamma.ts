@@ -39,9 +39,6 @@ export function stirlingCorrection(z: number): number {
     (1 / 12 +
       inverseSquared *
         (-1 / 360 +
-          inverseSquared *
-            (1 / 1260 +
-              inverseSquared *
-                (-1 / 1680 + inverseSquared * (1 / 1188 + inverseSquared * (-691 / 360360 + inverseSquared / 156))))))
+          inverseSquared * (1 / 1260 + inverseSquared * (-1 / 1680 + inverseSquared * (1 / 1188 + inverseSquared * (-691 / 360360 + inverseSquared / 156))))))
   );
 }

@@ -116,10 +116,7 @@ export interface PreparedNoiseAnalysis {
   readonly exposureHoursSource: NoiseAnalysisDetails['exposureHoursSource'];
   /** Fixed part of the result. */
   readonly fixed: Omit<NoiseAnalysis, 'maskedSeconds' | 'reviewed' | 'details'> & {
-    readonly details: Omit<
-      NoiseAnalysisDetails,
-      'masksSource' | 'masksUsed' | 'maskedIntervals' | 'masked' | 'maskEffects' | 'actionLevel'
-    >;
+    readonly details: Omit<NoiseAnalysisDetails, 'masksSource' | 'masksUsed' | 'maskedIntervals' | 'masked' | 'maskEffects' | 'actionLevel'>;
   };
 }
 
@@ -180,9 +177,7 @@ export function prepareNoiseAnalysis(log: NoiseLog, options: Omit<NoiseAnalysisO
     }
   }
   const stretches = wearCheck.stillStretches;
-  const longestStillStretchSeconds = stretches
-    ? stretches.reduce((longest, s) => Math.max(longest, s.endS - s.startS), 0) || null
-    : null;
+  const longestStillStretchSeconds = stretches ? stretches.reduce((longest, s) => Math.max(longest, s.endS - s.startS), 0) || null : null;
 
   return {
     log,
@@ -230,9 +225,7 @@ export function prepareNoiseAnalysis(log: NoiseLog, options: Omit<NoiseAnalysisO
  */
 export function analyzePreparedNoiseLog(prepared: PreparedNoiseAnalysis, masks?: readonly NoiseMaskSpan[]): NoiseAnalysis {
   const given = masks !== undefined;
-  const masksUsed: readonly NoiseMaskSpan[] = given
-    ? masks
-    : prepared.wearCheck.proposedMasks.map(({ startS, endS, reason }) => ({ startS, endS, reason }));
+  const masksUsed: readonly NoiseMaskSpan[] = given ? masks : prepared.wearCheck.proposedMasks.map(({ startS, endS, reason }) => ({ startS, endS, reason }));
   const figures = computeNoiseFigures(prepared.exposure, masksUsed, prepared.exposureHours);
   const { fixed } = prepared;
   // Key order follows the PRODUCT.md command-line contract.

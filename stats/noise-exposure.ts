@@ -10,13 +10,7 @@
  * to interval LAeq values only approximates the slow-weighted integration a dosimeter does; the
  * error grows with the interval length. LAeq and LEX,8h (energy sums) are exact for the intervals.
  */
-import {
-  eightHoursSeconds,
-  lex8hFromLaeq,
-  noiseCriteriaSets,
-  twaFromDose,
-  type NoiseCriteriaSetName,
-} from './noise-criteria';
+import { eightHoursSeconds, lex8hFromLaeq, noiseCriteriaSets, twaFromDose, type NoiseCriteriaSetName } from './noise-criteria';
 import type { NoiseLog } from './noise-log';
 
 /** A time span left out of the reviewed figures, seconds from the log start. */
@@ -185,7 +179,13 @@ function figuresFromSums(sums: NoiseIntervalSums, model: NoiseExposureModel, exp
   const criteria = (name: NoiseCriteriaSetName): NoiseCriteriaFigures => {
     if (sums.count === 0) return { dose: null, twa: null };
     const dose = (100 * sums[name] * model.runSeconds) / countedSeconds;
-    return { dose, twa: twaFromDose(dose, noiseCriteriaSets.find((set) => set.name === name)!) };
+    return {
+      dose,
+      twa: twaFromDose(
+        dose,
+        noiseCriteriaSets.find((set) => set.name === name)!,
+      ),
+    };
   };
   const laeq = sums.count === 0 ? null : 10 * Math.log10(sums.energy / sums.count);
   return {
@@ -212,11 +212,7 @@ export interface NoiseFiguresResult {
  * Method: PRODUCT.md "Dose per criteria set" and "Masks"; OSHA 29 CFR 1910.95 App. A;
  * NIOSH 98-126; ISO 9612:2009.
  */
-export function computeNoiseFigures(
-  model: NoiseExposureModel,
-  masks: readonly NoiseMaskSpan[],
-  exposureHours: number,
-): NoiseFiguresResult {
+export function computeNoiseFigures(model: NoiseExposureModel, masks: readonly NoiseMaskSpan[], exposureHours: number): NoiseFiguresResult {
   if (!(exposureHours > 0) || !Number.isFinite(exposureHours)) {
     throw new RangeError(`computeNoiseFigures: exposure hours must be a finite number > 0, got ${exposureHours}`);
   }

@@ -13,13 +13,7 @@
  * 50 MB; values outside physical ranges are rejected as "out of range" (usually wrong units).
  */
 import Papa from 'papaparse';
-import {
-  defaultNoiseLogMaxBytes,
-  noiseLogLimits,
-  noiseLogTimeToleranceSeconds,
-  type NoiseLog,
-  type NoiseLogMetadata,
-} from './noise-log';
+import { defaultNoiseLogMaxBytes, noiseLogLimits, noiseLogTimeToleranceSeconds, type NoiseLog, type NoiseLogMetadata } from './noise-log';
 
 /** A problem in a noise log file, with where it is. */
 export class NoiseLogError extends Error {
@@ -72,12 +66,7 @@ const columnRules: Record<Exclude<ColumnName, 'moving'>, { min: number; max: num
   apeak_mg: { ...noiseLogLimits.apeakMg, unit: 'mg' },
 };
 
-type NumericMetadataKey =
-  | 'interval_s'
-  | 'shift_hours'
-  | 'calibration_reference_db'
-  | 'calibration_before_db'
-  | 'calibration_after_db';
+type NumericMetadataKey = 'interval_s' | 'shift_hours' | 'calibration_reference_db' | 'calibration_before_db' | 'calibration_after_db';
 const numericMetadata: Record<NumericMetadataKey, { min: number; max: number; minExclusive: boolean; unit: string }> = {
   interval_s: { ...noiseLogLimits.intervalSeconds, minExclusive: false, unit: 's' },
   shift_hours: { ...noiseLogLimits.shiftHours, minExclusive: true, unit: 'h' },
@@ -286,10 +275,10 @@ export class NoiseLogReader {
       if (only.includes('\t')) throw new NoiseLogError('the delimiter must be a comma; this header is separated by tabs', { row });
     }
     if (!this.versionSeen) {
-      throw new NoiseLogError(
-        'missing the version line "# noise-log: 1" before the header; a format version 1 noise log starts with it',
-        { row, metadataKey: 'noise-log' },
-      );
+      throw new NoiseLogError('missing the version line "# noise-log: 1" before the header; a format version 1 noise log starts with it', {
+        row,
+        metadataKey: 'noise-log',
+      });
     }
     if (this.numeric.interval_s === undefined) {
       throw new NoiseLogError('required metadata line "# interval_s: <seconds>" is missing before the header', {
@@ -344,9 +333,7 @@ export class NoiseLogReader {
       ['az_mg', this.az],
       ['apeak_mg', this.apeak],
     ];
-    this.numericPlan = channels.flatMap(([name, channel]) =>
-      channel ? [{ name, index: index[name]!, ...columnRules[name], channel }] : [],
-    );
+    this.numericPlan = channels.flatMap(([name, channel]) => (channel ? [{ name, index: index[name]!, ...columnRules[name], channel }] : []));
     this.timeIndex = index.t_s!;
     this.movingIndex = index.moving ?? -1;
   }
@@ -430,10 +417,10 @@ export class NoiseLogReader {
   private throwShortRow(isLast: boolean): never {
     const pending = this.pendingShortRow!;
     const what = `${pending.fieldCount} of ${this.headerLength} values`;
-    throw new NoiseLogError(
-      isLast ? `the last row is cut short (${what}); was the file truncated?` : `the row is cut short (${what})`,
-      { row: pending.row, column: pending.missingColumn },
-    );
+    throw new NoiseLogError(isLast ? `the last row is cut short (${what}); was the file truncated?` : `the row is cut short (${what})`, {
+      row: pending.row,
+      column: pending.missingColumn,
+    });
   }
 
   /** End of input: check what only the whole file can show and return the log. */
@@ -543,7 +530,13 @@ export function decodeNoiseLogBytes(bytes: Uint8Array, options: NoiseLogReadOpti
 export function parseNoiseLog(text: string, options: NoiseLogReadOptions = {}): NoiseLog {
   const maxBytes = options.maxBytes ?? defaultNoiseLogMaxBytes;
   if (text.length > maxBytes || text.length * 3 > maxBytes) checkNoiseLogSize(utf8Length(text), maxBytes);
-  if (text.trim().replace(/^\ufeff/, '').trim() === '') throw new NoiseLogError('the file is empty');
+  if (
+    text
+      .trim()
+      .replace(/^\ufeff/, '')
+      .trim() === ''
+  )
+    throw new NoiseLogError('the file is empty');
   const reader = new NoiseLogReader();
   let failure: unknown = null;
   let row = 0;

@@ -135,9 +135,7 @@ export function noiseLogFromChannels(channels: NoiseLogChannels): NoiseLog {
   checkChannel('tS', tS, length, noiseLogLimits.tS);
   for (let i = 1; i < length; i++) {
     if (tS[i] - tS[i - 1] < interval - noiseLogTimeToleranceSeconds) {
-      throw new RangeError(
-        `noiseLogFromChannels: tS[${i}] = ${tS[i]} is less than one interval after tS[${i - 1}] = ${tS[i - 1]}`,
-      );
+      throw new RangeError(`noiseLogFromChannels: tS[${i}] = ${tS[i]} is less than one interval after tS[${i - 1}] = ${tS[i - 1]}`);
     }
   }
   checkChannel('laeqDb', laeqDb, length, noiseLogLimits.laeqDb);

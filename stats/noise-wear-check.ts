@@ -57,10 +57,7 @@ export interface NoiseWearCheck {
  * the log is ≥ `motionThresholdMg` (the first interval is not moving). null with neither column.
  * Method: PRODUCT.md wear check (common practice).
  */
-export function detectMotion(
-  log: NoiseLog,
-  motionThresholdMg: number,
-): { moving: Uint8Array; source: NoiseMotionSource } | null {
+export function detectMotion(log: NoiseLog, motionThresholdMg: number): { moving: Uint8Array; source: NoiseMotionSource } | null {
   if (log.moving) return { moving: log.moving, source: 'moving-column' };
   if (!log.acceleration) return null;
   if (!(motionThresholdMg > 0)) throw new RangeError(`detectMotion: motionThresholdMg must be > 0, got ${motionThresholdMg}`);

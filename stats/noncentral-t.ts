@@ -180,12 +180,7 @@ export interface NoncentralitySearchBounds {
  * method. When the root lies outside [lowest, highest] the result is −Infinity or +Infinity, so a
  * caller can stop where the answer no longer changes a reported figure.
  */
-export function noncentralityForProbability(
-  t: number,
-  degreesOfFreedom: number,
-  p: number,
-  bounds: NoncentralitySearchBounds = {},
-): number {
+export function noncentralityForProbability(t: number, degreesOfFreedom: number, p: number, bounds: NoncentralitySearchBounds = {}): number {
   checkParameters('noncentralityForProbability', degreesOfFreedom, 0);
   if (!Number.isFinite(t)) throw new RangeError(`noncentralityForProbability: t must be a finite number, got ${t}`);
   if (!(p > 0 && p < 1)) throw new RangeError(`noncentralityForProbability: p must lie strictly between 0 and 1, got ${p}`);

@@ -89,10 +89,7 @@ function hirschStedingerSorted(
  * values or their logs give the same positions). Tied detected values, and non-detects sharing a
  * limit, are ranked in input order. Every position lies strictly between 0 and 1.
  */
-export function hirschStedingerPositions(
-  detected: readonly number[],
-  detectionLimits: readonly number[],
-): HirschStedingerPositions {
+export function hirschStedingerPositions(detected: readonly number[], detectionLimits: readonly number[]): HirschStedingerPositions {
   for (const x of detected) if (Number.isNaN(x)) throw new RangeError('hirschStedingerPositions: detected values must be numbers, got NaN');
   for (const x of detectionLimits) if (Number.isNaN(x)) throw new RangeError('hirschStedingerPositions: detection limits must be numbers, got NaN');
   const detectedOrder = sortedIndexes(detected);
@@ -119,6 +116,8 @@ export interface RosScratch {
   detectedPositions: Float64Array;
   detectedScores: Float64Array;
   nonDetectPositions: Float64Array;
+  /** Imputed logs of the non-detects (limit order), the fitted line at their normal scores. */
+  nonDetectScores: Float64Array;
 }
 
 /** Working arrays for `size` results. */
@@ -127,13 +126,14 @@ export function createRosScratch(size: number): RosScratch {
     detectedPositions: new Float64Array(size),
     detectedScores: new Float64Array(size),
     nonDetectPositions: new Float64Array(size),
+    nonDetectScores: new Float64Array(size),
   };
 }
 
 /**
  * Robust ROS on sorted log data (detectedLogs[0 … k − 1] and limitLogs[0 … c − 1] ascending),
  * returning the fitted line and the mean and SD (n − 1) of the combined logs. The plotting
- * positions and normal scores are left in `scratch` (nonDetectPositions in limit order). Checks
+ * positions, normal scores and imputed logs are left in `scratch` (non-detects in limit order). Checks
  * nothing: callers validate. Null when the line has no positive slope (all detected equal).
  */
 export function rosSortedLogs(
@@ -166,13 +166,18 @@ export function rosSortedLogs(
   const slope = sxy / sxx;
   if (!(slope > 0)) return null;
   const intercept = meanLog - slope * meanScore;
+  // The imputed logs are kept in nonDetectScores so Φ⁻¹ is evaluated once per non-detect.
+  const imputed = scratch.nonDetectScores;
   let sum = meanLog * k;
-  for (let j = 0; j < c; j++) sum += intercept + slope * quantile(nonDetectPositions[j]);
+  for (let j = 0; j < c; j++) {
+    imputed[j] = intercept + slope * quantile(nonDetectPositions[j]);
+    sum += imputed[j];
+  }
   const n = k + c;
   const mu = sum / n;
   let squares = 0;
   for (let i = 0; i < k; i++) squares += (detectedLogs[i] - mu) ** 2;
-  for (let j = 0; j < c; j++) squares += (intercept + slope * quantile(nonDetectPositions[j]) - mu) ** 2;
+  for (let j = 0; j < c; j++) squares += (imputed[j] - mu) ** 2;
   return { mu, sigma: Math.sqrt(squares / (n - 1)), intercept, slope };
 }
 

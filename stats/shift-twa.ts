@@ -72,9 +72,7 @@ export function shiftTwa(periods: readonly SamplePeriod[], options: ShiftTwaOpti
       throw new RangeError(`shiftTwa: period ${index + 1} must last more than 0 minutes, got ${period.minutes}`);
     }
     if (!Number.isFinite(period.concentration) || period.concentration < 0 || (period.nonDetect && period.concentration === 0)) {
-      throw new RangeError(
-        `shiftTwa: period ${index + 1} needs a concentration ≥ 0 (a detection limit > 0 for a non-detect), got ${period.concentration}`,
-      );
+      throw new RangeError(`shiftTwa: period ${index + 1} needs a concentration ≥ 0 (a detection limit > 0 for a non-detect), got ${period.concentration}`);
     }
     sampledMinutes += period.minutes;
     if (period.nonDetect) {

@@ -46,20 +46,11 @@ export function milligramsPerCubicMetreToPpm(milligramsPerCubicMetre: number, mo
  * Converts between ppm and mg/m³ (either direction; the same unit returns the value unchanged).
  * Throws a RangeError when a conversion needs a molecular weight and none is given.
  */
-export function convertAirConcentration(
-  value: number,
-  from: AirConcentrationUnit,
-  to: AirConcentrationUnit,
-  molecularWeight: number | null,
-): number {
+export function convertAirConcentration(value: number, from: AirConcentrationUnit, to: AirConcentrationUnit, molecularWeight: number | null): number {
   if (from === to) {
-    if (!Number.isFinite(value) || value < 0)
-      throw new RangeError(`convertAirConcentration: the concentration must be a finite number ≥ 0, got ${value}`);
+    if (!Number.isFinite(value) || value < 0) throw new RangeError(`convertAirConcentration: the concentration must be a finite number ≥ 0, got ${value}`);
     return value;
   }
-  if (molecularWeight === null)
-    throw new RangeError(`convertAirConcentration: converting ${from} to ${to} needs the molecular weight`);
-  return from === 'ppm'
-    ? ppmToMilligramsPerCubicMetre(value, molecularWeight)
-    : milligramsPerCubicMetreToPpm(value, molecularWeight);
+  if (molecularWeight === null) throw new RangeError(`convertAirConcentration: converting ${from} to ${to} needs the molecular weight`);
+  return from === 'ppm' ? ppmToMilligramsPerCubicMetre(value, molecularWeight) : milligramsPerCubicMetreToPpm(value, molecularWeight);
 }

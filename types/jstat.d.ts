@@ -27,10 +27,9 @@ declare module 'jstat' {
 }
 declare module 'better-sqlite3-session-store' {
   import type session from 'express-session';
-  type StoreFactory = (s: typeof session) => new (options: {
-    client: import('better-sqlite3').Database;
-    expired?: { clear?: boolean; intervalMs?: number };
-  }) => session.Store;
+  type StoreFactory = (
+    s: typeof session,
+  ) => new (options: { client: import('better-sqlite3').Database; expired?: { clear?: boolean; intervalMs?: number } }) => session.Store;
   const factory: StoreFactory;
   export default factory;
 }

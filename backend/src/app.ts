@@ -11,6 +11,7 @@ import { serveClient } from './middleware/client';
 import { csrfProtection } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
 import { createLimiters } from './middleware/rate-limit';
+import { readCacheInvalidation } from './middleware/read-cache';
 import { requestLogger } from './middleware/request-logger';
 import { securityHeaders } from './middleware/security-headers';
 import { createSessionMiddleware } from './middleware/session';
@@ -63,6 +64,8 @@ export function createApp(options: CreateAppOptions): BellwetherApp {
     next();
   });
   api.use(csrfProtection);
+  // Cached answers of the heavy read endpoints are dropped after every request that may write.
+  api.use(readCacheInvalidation(deps.db));
   mountRoutes(api, apiRoutes, deps, createLimiters(config.rateLimits));
   api.use((req, _res, next) => next(new NotFound(`No API endpoint ${req.method} ${req.originalUrl.split('?')[0]}`)));
   app.use('/api', api);

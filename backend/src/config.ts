@@ -65,9 +65,15 @@ const environment = z.object({
   SMTP_URL: z.url().optional(),
   APP_URL: z.url().optional(),
   MAIL_FROM: z.string().min(3).default('Bellwether <no-reply@bellwether.localhost>'),
+  /** Folder with the built client; defaults to dist/client (vite.config.ts reads the same variable). */
+  CLIENT_DIR: z.string().min(1).optional(),
   TRUST_PROXY: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
-  SESSION_HOURS: z.coerce.number().positive().max(24 * 30).default(12),
+  SESSION_HOURS: z.coerce
+    .number()
+    .positive()
+    .max(24 * 30)
+    .default(12),
   DEMO_PASSWORD: z.string().min(10, 'DEMO_PASSWORD must be at least 10 characters').default('bellwether-demo'),
   SEED_DEMO: z.enum(['true', 'false', '1', '0']).default('true'),
   VITEST: z.string().optional(),
@@ -109,7 +115,7 @@ export function loadSettings(env: NodeJS.ProcessEnv = process.env): ServerSettin
       trustProxy: parseTrustProxy(values.TRUST_PROXY),
       logLevel: values.LOG_LEVEL ?? (testing ? 'silent' : 'info'),
       mailFrom: values.MAIL_FROM,
-      clientDir: join(projectRoot, 'dist/client'),
+      clientDir: values.CLIENT_DIR ?? join(projectRoot, 'dist/client'),
       jsonLimit: '1mb',
       rateLimits: defaultRateLimits,
     },

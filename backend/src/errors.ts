@@ -4,16 +4,7 @@
  * `{ error: { code, message, fields?, details? } }` (API_CONTRACT.md).
  */
 export type ErrorCode =
-  | 'bad_request'
-  | 'unauthorized'
-  | 'forbidden'
-  | 'not_found'
-  | 'conflict'
-  | 'unprocessable'
-  | 'rate_limited'
-  | 'csrf'
-  | 'payload_too_large'
-  | 'internal';
+  'bad_request' | 'unauthorized' | 'forbidden' | 'not_found' | 'conflict' | 'unprocessable' | 'rate_limited' | 'csrf' | 'payload_too_large' | 'internal';
 
 /** Field path (`email`, `jobTitles.2`) → what is wrong with it. */
 export type FieldErrors = Record<string, string>;

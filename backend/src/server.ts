@@ -10,6 +10,7 @@ import { openMigratedDatabase } from './db/client';
 import { databaseIsEmpty, demoSignIns, seedDemo } from './db/seed-demo';
 import { startCaptureServer, type CaptureServer } from './email/capture-server';
 import { createSmtpMailer } from './email/mailer';
+import { scheduleReviewReminders } from './jobs/review-reminders';
 import { createLogger } from './logger';
 
 async function main() {
@@ -43,6 +44,8 @@ async function main() {
   const server: Server = await new Promise((resolve, reject) => {
     const listening = app.listen(config.port, (error?: Error) => (error ? reject(error) : resolve(listening)));
   });
+  // The daily review reminders: once now, then every 24 h (jobs/review-reminders.ts).
+  const reviewReminders = scheduleReviewReminders({ db, mailer, clock: systemClock, logger, config });
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
 
@@ -50,9 +53,7 @@ async function main() {
     '',
     `Bellwether is running at http://localhost:${port} (${config.nodeEnv}).`,
     `Database: ${config.databasePath}`,
-    capture
-      ? `E-mail: local capture on ${capture.smtpUrl}; admins read it on the Outbox page.`
-      : 'E-mail: sent through SMTP_URL.',
+    capture ? `E-mail: local capture on ${capture.smtpUrl}; admins read it on the Outbox page.` : 'E-mail: sent through SMTP_URL.',
   ];
   if (seeded) {
     lines.push('', `Demo scenario seeded. Sign in with password "${settings.demoPassword}" as:`);
@@ -69,12 +70,19 @@ async function main() {
     if (stopping) return;
     stopping = true;
     console.log(`${signal}: shutting down…`);
+    // In-flight requests get up to 10 s to finish; then connections are cut and the exit code says so.
     const force = setTimeout(() => {
       console.error('Shutdown took longer than 10 s; exiting anyway.');
+      server.closeAllConnections();
       process.exit(1);
     }, 10_000);
     force.unref();
+    // A keep-alive connection turns idle once its request is answered: close it then, so close() can finish.
+    const idleSweep = setInterval(() => server.closeIdleConnections(), 100);
+    idleSweep.unref();
     server.close(async () => {
+      clearInterval(idleSweep);
+      reviewReminders.stop();
       app.dispose();
       mailer.close();
       await capture?.close();

@@ -28,5 +28,4 @@ export const parseBody = <Schema extends z.ZodType>(schema: Schema, body: unknow
 /** Parses `req.query` (Express 5: read-only, so keep the result in a variable). */
 export const parseQuery = <Schema extends z.ZodType>(schema: Schema, query: unknown) => parsePart(schema, query, 'query');
 /** Parses `req.params`. */
-export const parseParams = <Schema extends z.ZodType>(schema: Schema, params: unknown) =>
-  parsePart(schema, params, 'parameters');
+export const parseParams = <Schema extends z.ZodType>(schema: Schema, params: unknown) => parsePart(schema, params, 'parameters');

@@ -57,7 +57,13 @@ describe('agents and the organization’s OEL list', () => {
 
   it('adds an OEL list entry and lists the list with the agent’s name, filtered by agent', async () => {
     const toluene = agentId(context.db, ridgeback, 'Toluene');
-    const created = await hygienist.post(entriesPath, { agentId: toluene, source: 'Example limit (test data)', value: 20, unit: 'ppm', averagingTime: '8h-twa' });
+    const created = await hygienist.post(entriesPath, {
+      agentId: toluene,
+      source: 'Example limit (test data)',
+      value: 20,
+      unit: 'ppm',
+      averagingTime: '8h-twa',
+    });
     expect(created.status).toBe(201);
     expect(created.body).toMatchObject({ agentName: 'Toluene', agentKind: 'chemical', value: 20, unit: 'ppm', archived: false });
     const list = await hygienist.get(`${entriesPath}?agentId=${toluene}`);

@@ -38,7 +38,13 @@ describe('dashboards', () => {
     expect(sawmill.undecided.map((group) => group.name)).toContain('Head sawyer – noise');
     const placed = dashboard.matrix.flatMap((row) => [...row.cells.flat(), ...row.undecided]).length;
     expect(placed).toBe(dashboard.groups.length);
-    expect(dashboard.counts).toMatchObject({ groups: dashboard.groups.length, decided: 2, undecided: dashboard.groups.length - 2, openDrafts: 2, outOfDate: 0 });
+    expect(dashboard.counts).toMatchObject({
+      groups: dashboard.groups.length,
+      decided: 2,
+      undecided: dashboard.groups.length - 2,
+      openDrafts: 2,
+      outOfDate: 0,
+    });
   });
 
   it('lists unacceptable groups, recent decisions with their status, and the sampling progress of each plan', async () => {
@@ -79,12 +85,18 @@ describe('dashboards', () => {
   it('a new result marks the group out of date on the dashboard', async () => {
     const hygienist = await context.signInAs('hygienist');
     const edgerId = groupId(context.db, ridgeback, 'Edger operator – noise');
-    const added = await hygienist.post(`/api/orgs/${ridgeback}/shift-results`, { exposureGroupId: edgerId, workerId: workerId(context.db, ridgeback, 'RT-003'), date: '2025-02-12', value: 150 });
+    const added = await hygienist.post(`/api/orgs/${ridgeback}/shift-results`, {
+      exposureGroupId: edgerId,
+      workerId: workerId(context.db, ridgeback, 'RT-003'),
+      date: '2025-02-12',
+      value: 150,
+    });
     expect(added.status, JSON.stringify(added.body)).toBe(201);
     const dashboard = (await manager.get(`/api/orgs/${ridgeback}/dashboard`)).body as OrganizationDashboard;
     expect(dashboard.groups.find((group) => group.id === edgerId)!.outOfDate).toBe(true);
     expect(dashboard.counts.outOfDate).toBe(1);
-    const record = (await manager.get(`/api/orgs/${ridgeback}/decision-records/${dashboard.groups.find((group) => group.id === edgerId)!.recordId}`)).body as DecisionRecordView;
+    const record = (await manager.get(`/api/orgs/${ridgeback}/decision-records/${dashboard.groups.find((group) => group.id === edgerId)!.recordId}`))
+      .body as DecisionRecordView;
     expect(record.outOfDate).toBe(true);
   });
 

@@ -32,7 +32,11 @@ describe('decision records', () => {
 
   /** A new draft on the wood-dust group by `who` (the group has no seeded records). */
   async function draft(who: SignedIn, body: object = {}): Promise<DecisionRecordView> {
-    const answer = await who.post(groupUrl(woodDust), { rationale: 'Ten full-shift samples over the autumn campaign.', actions: 'Keep the booth doors shut.', ...body });
+    const answer = await who.post(groupUrl(woodDust), {
+      rationale: 'Ten full-shift samples over the autumn campaign.',
+      actions: 'Keep the booth doors shut.',
+      ...body,
+    });
     expect(answer.status, JSON.stringify(answer.body)).toBe(201);
     return answer.body as DecisionRecordView;
   }
@@ -119,9 +123,22 @@ describe('decision records', () => {
     expect(answer.status).toBe(200);
     const approved = answer.body as DecisionRecordView;
     const whatIf = (await analyst.get(`/api/orgs/${ridgeback}/exposure-groups/${woodDust}/assessment?exclude=${outlier.id}`)).body as GroupAssessmentResponse;
-    expect(approved).toMatchObject({ status: 'approved', approver: { id: analyst.user.id, name: 'Jordan Ames' }, dataVersionAtApproval: whatIf.group.dataVersion });
+    expect(approved).toMatchObject({
+      status: 'approved',
+      approver: { id: analyst.user.id, name: 'Jordan Ames' },
+      dataVersionAtApproval: whatIf.group.dataVersion,
+    });
     expect(approved.frozenInputs!.results.map((result) => result.id)).toEqual(whatIf.data.results.map((result) => result.id));
-    expect(approved.frozenInputs!.excluded).toEqual([{ id: outlier.id, workerCode: outlier.workerCode, date: outlier.date, value: outlier.value, nonDetect: outlier.nonDetect, reason: 'Sample tube cracked at the lab' }]);
+    expect(approved.frozenInputs!.excluded).toEqual([
+      {
+        id: outlier.id,
+        workerCode: outlier.workerCode,
+        date: outlier.date,
+        value: outlier.value,
+        nonDetect: outlier.nonDetect,
+        reason: 'Sample tube cracked at the lab',
+      },
+    ]);
     // The hash is the assessment's: SHA-256 of the canonical JSON of the values used, the OEL, action level and settings.
     const document = {
       values: whatIf.data.results.map((result) => ({ workerCode: result.workerCode, date: result.date, value: result.value, nonDetect: result.nonDetect })),
@@ -210,8 +227,19 @@ describe('decision records', () => {
     expect(resubmitted.body.status).toBe('draft');
     const approved = await analyst.post(`${recordUrl(record.id)}/approve`);
     expect(approved.status).toBe(200);
-    expect(approved.body).toMatchObject({ status: 'approved', category: 2, judgement: 'uncertain', rationale: 'The highest result is within the spread of the others; it stays.' });
-    expect(auditOf(context.db, 'decision_record', record.id).map((event) => event.action)).toEqual(['drafted', 'returned', 'edited', 'resubmitted', 'approved']);
+    expect(approved.body).toMatchObject({
+      status: 'approved',
+      category: 2,
+      judgement: 'uncertain',
+      rationale: 'The highest result is within the spread of the others; it stays.',
+    });
+    expect(auditOf(context.db, 'decision_record', record.id).map((event) => event.action)).toEqual([
+      'drafted',
+      'returned',
+      'edited',
+      'resubmitted',
+      'approved',
+    ]);
   });
 
   it('history lists what changed between consecutive approved records; the older one is superseded', async () => {
@@ -268,7 +296,11 @@ describe('decision records', () => {
   it('a draft with bad input is refused with the field named; a second open draft is refused (409)', async () => {
     const bad = await hygienist.post(groupUrl(woodDust), { rationale: '', category: 7, exclusions: [{ resultId: 999999, reason: '' }] });
     expect(bad.status).toBe(400);
-    expect(bad.body.error.fields).toMatchObject({ rationale: 'Write the rationale', category: 'Use a category from 0 to 4', 'exclusions.0.reason': 'Say why this result is left out' });
+    expect(bad.body.error.fields).toMatchObject({
+      rationale: 'Write the rationale',
+      category: 'Use a category from 0 to 4',
+      'exclusions.0.reason': 'Say why this result is left out',
+    });
     const unknown = await hygienist.post(groupUrl(woodDust), { rationale: 'x', exclusions: [{ resultId: 999999, reason: 'typo' }] });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.fields).toEqual({ exclusions: 'result 999999 is not a valid result of this group' });
@@ -279,7 +311,11 @@ describe('decision records', () => {
   });
 
   it('the organization’s reviewIntervalMonths setting replaces the EN 689 proposal', async () => {
-    context.db.update(organizations).set({ settings: { reviewIntervalMonths: 6 } }).where(eq(organizations.id, ridgeback)).run();
+    context.db
+      .update(organizations)
+      .set({ settings: { reviewIntervalMonths: 6 } })
+      .where(eq(organizations.id, ridgeback))
+      .run();
     const proposal = await hygienist.get(`${groupUrl(woodDust)}/proposal`);
     expect(proposal.status).toBe(200);
     expect(proposal.body).toMatchObject({ reviewDate: '2025-09-03', reviewDateSource: 'Organization setting: review every 6 months', reviewIntervalMonths: 6 });

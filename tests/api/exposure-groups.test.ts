@@ -60,7 +60,10 @@ describe('exposure groups', () => {
       validResultCount: 0,
       effectiveOel: { value: entry.value, reductionFactor: 1, method: 'none' },
     });
-    expect(auditOf(context.db, 'exposure_group', answer.body.id)[0]).toMatchObject({ action: 'created', after: { oelEntryId: entry.id, oelValue: entry.value } });
+    expect(auditOf(context.db, 'exposure_group', answer.body.id)[0]).toMatchObject({
+      action: 'created',
+      after: { oelEntryId: entry.id, oelValue: entry.value },
+    });
   });
 
   it('a typed-in chemical OEL with the Brief & Scala adjustment gives the reduced limit for a 12-h shift', async () => {
@@ -93,13 +96,27 @@ describe('exposure groups', () => {
     const noCriteria = await hygienist.post(base, { ...common, agentId: noise, name: 'B', oelEntryId: noiseEntry.id });
     expect(noCriteria.body.error.fields).toEqual({ noiseCriteriaSet: 'Choose the noise criteria set the group is judged with' });
 
-    const action = await hygienist.post(base, { ...common, agentId: noise, name: 'C', oelEntryId: noiseEntry.id, noiseCriteriaSet: 'nioshRel', actionLevel: 100 });
+    const action = await hygienist.post(base, {
+      ...common,
+      agentId: noise,
+      name: 'C',
+      oelEntryId: noiseEntry.id,
+      noiseCriteriaSet: 'nioshRel',
+      actionLevel: 100,
+    });
     expect(action.body.error.fields).toEqual({ actionLevel: 'The action level (100) must be below the OEL (100)' });
 
     const wrongEntry = await hygienist.post(base, { ...common, name: 'D', oelEntryId: noiseEntry.id });
     expect(wrongEntry.body.error.fields.oelEntryId).toMatch(/is for "Noise", not for the group's agent "Inhalable wood dust"/);
 
-    const briefScala = await hygienist.post(base, { ...common, agentId: noise, name: 'E', oelEntryId: noiseEntry.id, noiseCriteriaSet: 'nioshRel', extendedShiftAdjustment: 'brief-scala' });
+    const briefScala = await hygienist.post(base, {
+      ...common,
+      agentId: noise,
+      name: 'E',
+      oelEntryId: noiseEntry.id,
+      noiseCriteriaSet: 'nioshRel',
+      extendedShiftAdjustment: 'brief-scala',
+    });
     expect(briefScala.body.error.fields).toEqual({ extendedShiftAdjustment: 'The Brief & Scala adjustment is for a chemical 8-hour TWA limit only' });
 
     const shift = await hygienist.post(base, { ...common, name: 'F', shiftHours: 30 });
@@ -107,11 +124,27 @@ describe('exposure groups', () => {
 
     const closedSite = await hygienist.post(`/api/orgs/${ridgeback}/sites`, { name: 'Closed yard' });
     await hygienist.post(`/api/orgs/${ridgeback}/sites/${closedSite.body.id}/archive`, {});
-    const archivedSite = await hygienist.post(base, { ...common, name: 'H', siteId: closedSite.body.id, oelValue: 1, oelUnit: 'mg/m3', oelSource: 'x', oelAveragingTime: '8h-twa' });
+    const archivedSite = await hygienist.post(base, {
+      ...common,
+      name: 'H',
+      siteId: closedSite.body.id,
+      oelValue: 1,
+      oelUnit: 'mg/m3',
+      oelSource: 'x',
+      oelAveragingTime: '8h-twa',
+    });
     expect(archivedSite.body.error.fields).toEqual({ siteId: 'Site "Closed yard" is archived: bring it back first' });
 
     const foreignSite = siteId(context.db, slateHarbor, 'Fabrication shop');
-    const site = await hygienist.post(base, { ...common, name: 'G', siteId: foreignSite, oelValue: 1, oelUnit: 'mg/m3', oelSource: 'x', oelAveragingTime: '8h-twa' });
+    const site = await hygienist.post(base, {
+      ...common,
+      name: 'G',
+      siteId: foreignSite,
+      oelValue: 1,
+      oelUnit: 'mg/m3',
+      oelSource: 'x',
+      oelAveragingTime: '8h-twa',
+    });
     expect(site.body.error.fields).toEqual({ siteId: `No site ${foreignSite} in this organization` });
   });
 
@@ -119,11 +152,25 @@ describe('exposure groups', () => {
     const id = groupId(context.db, ridgeback, 'Edger operator – noise');
     const answer = await hygienist.get(`${base}/${id}`);
     expect(answer.status).toBe(200);
-    expect(answer.body).toMatchObject({ id, name: 'Edger operator – noise', noiseCriteriaSet: 'nioshRel', validResultCount: 7, effectiveOel: { value: 100, unit: 'dose-percent' } });
+    expect(answer.body).toMatchObject({
+      id,
+      name: 'Edger operator – noise',
+      noiseCriteriaSet: 'nioshRel',
+      validResultCount: 7,
+      effectiveOel: { value: 100, unit: 'dose-percent' },
+    });
   });
 
   it('a duplicate name on the same site answers 409', async () => {
-    const answer = await hygienist.post(base, { siteId: sawmill, name: 'Saw filer – noise', agentId: woodDust, oelValue: 1, oelUnit: 'mg/m3', oelSource: 'x', oelAveragingTime: '8h-twa' });
+    const answer = await hygienist.post(base, {
+      siteId: sawmill,
+      name: 'Saw filer – noise',
+      agentId: woodDust,
+      oelValue: 1,
+      oelUnit: 'mg/m3',
+      oelSource: 'x',
+      oelAveragingTime: '8h-twa',
+    });
     expect(answer.status).toBe(409);
     expect(answer.body.error.message).toMatch(/already has an exposure group named "Saw filer – noise"/);
   });
@@ -153,7 +200,10 @@ describe('exposure groups', () => {
     expect(edit.status).toBe(200);
     // Typing over the OEL unlinks the list entry it was copied from.
     expect(edit.body).toMatchObject({ tasks: 'Booth work; deck spells; clean-up.', oelValue: 4, oelEntryId: null });
-    expect(auditOf(context.db, 'exposure_group', id).at(-1)).toMatchObject({ action: 'updated', after: { tasks: 'Booth work; deck spells; clean-up.', oelValue: 4, oelEntryId: null } });
+    expect(auditOf(context.db, 'exposure_group', id).at(-1)).toMatchObject({
+      action: 'updated',
+      after: { tasks: 'Booth work; deck spells; clean-up.', oelValue: 4, oelEntryId: null },
+    });
   });
 
   it('archives a group (its results stay) and brings it back', async () => {

@@ -17,10 +17,12 @@ describe('health, unknown routes and request errors', () => {
     rmSync(emptyClientFolder, { recursive: true, force: true });
   });
 
-  it('GET /api/health answers 200 { ok: true } when the database answers', async () => {
+  it('GET /api/health answers 200 { ok: true } with the applied migrations when the database answers', async () => {
     const answer = await request(context.app).get('/api/health');
     expect(answer.status).toBe(200);
-    expect(answer.body).toEqual({ ok: true });
+    const applied = (context.db.$client.prepare('select count(*) as n from __drizzle_migrations').get() as { n: number }).n;
+    expect(applied).toBeGreaterThan(0);
+    expect(answer.body).toEqual({ ok: true, database: { migrations: applied } });
   });
 
   it('answers with a Content Security Policy that allows only our own scripts', async () => {
@@ -63,12 +65,25 @@ describe('health, unknown routes and request errors', () => {
     expect(answer.text).toContain('The client has not been built yet');
   });
 
-  it('GET /api/health answers 503 { ok: false } when the database cannot answer', async () => {
+  it('GET /api/health answers 503 { ok: false, reason } when the database cannot answer', async () => {
     const broken = await createTestContext({ seed: false, capture: false });
     broken.db.$client.close();
     const answer = await request(broken.app).get('/api/health');
     expect(answer.status).toBe(503);
-    expect(answer.body).toEqual({ ok: false });
+    expect(answer.body).toEqual({ ok: false, reason: 'the database cannot answer: The database connection is not open' });
     await broken.close();
+  });
+
+  it('GET /api/health answers 503 naming the missing migrations when the database is behind this build', async () => {
+    const behind = await createTestContext({ seed: false, capture: false });
+    try {
+      const applied = (behind.db.$client.prepare('select count(*) as n from __drizzle_migrations').get() as { n: number }).n;
+      behind.db.$client.prepare('delete from __drizzle_migrations where rowid = (select max(rowid) from __drizzle_migrations)').run();
+      const answer = await request(behind.app).get('/api/health');
+      expect(answer.status).toBe(503);
+      expect(answer.body).toEqual({ ok: false, reason: `${applied - 1} of ${applied} migrations applied: run npm run db:migrate` });
+    } finally {
+      await behind.close();
+    }
   });
 });

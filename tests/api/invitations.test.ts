@@ -68,7 +68,9 @@ describe('invitations', () => {
     // And the new password works for a normal sign-in.
     await context.signIn('new.hygienist@ridgeback.example', 'a-long-new-password');
 
-    const again = await (await context.client()).post(`/api/invitations/${token}/accept`, {
+    const again = await (
+      await context.client()
+    ).post(`/api/invitations/${token}/accept`, {
       name: 'Someone Else',
       password: 'another-long-password',
     });
@@ -91,7 +93,9 @@ describe('invitations', () => {
     context.clock.advance(7 * 24 * 3_600_000 + 1000);
     try {
       expect((await request(context.app).get(`/api/invitations/${token}`)).status).toBe(404);
-      const accept = await (await context.client()).post(`/api/invitations/${token}/accept`, {
+      const accept = await (
+        await context.client()
+      ).post(`/api/invitations/${token}/accept`, {
         name: 'Late',
         password: 'a-long-new-password',
       });
@@ -139,10 +143,9 @@ describe('invitations', () => {
     const right = await client.post(`/api/invitations/${token}/accept`, { name: 'ignored', password: demoPassword });
     expect(right.status).toBe(200);
     expect(right.body.user.name).toBe('Emery Voss');
-    expect(right.body.memberships.map((membership: { organizationSlug: string; role: string }) => `${membership.organizationSlug}:${membership.role}`)).toEqual([
-      'ridgeback-timber:analyst',
-      'slate-harbor:analyst',
-    ]);
+    expect(right.body.memberships.map((membership: { organizationSlug: string; role: string }) => `${membership.organizationSlug}:${membership.role}`)).toEqual(
+      ['ridgeback-timber:analyst', 'slate-harbor:analyst'],
+    );
   });
 
   it('inviting someone who is already an active member answers 409', async () => {

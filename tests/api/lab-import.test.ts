@@ -64,7 +64,11 @@ describe('lab CSV import', () => {
     expect(answer.status).toBe(400);
     expect(resultCount(context.db)).toBe(before);
     expect(statusOf(uploaded.body.batch.id)).toBe('uploaded');
-    return answer.body.error as { message: string; fields?: Record<string, string>; details?: { problems: Array<{ row: number | null; column: string | null; message: string }> } };
+    return answer.body.error as {
+      message: string;
+      fields?: Record<string, string>;
+      details?: { problems: Array<{ row: number | null; column: string | null; message: string }> };
+    };
   }
 
   /** Checks an upload is refused with nothing stored (no batch, no results). */
@@ -136,7 +140,9 @@ describe('lab CSV import', () => {
       // (0.40 × 120 + 0.10 × 240) / (120 + 240) = 72 / 360 = 0.2 mg/m³
       expect(rt011.value).toBeCloseTo(0.2, 12);
       expect(rt011.rows).toEqual([2, 3]);
-      expect(rt011.statement).toMatch(/TWA = Σ\(Cᵢ·tᵢ\)\/Σtᵢ, Σtᵢ = 360 min \(the sampled time\); the 120 unsampled minutes of the 480-min shift are taken as exposed at the average of the sampled periods/);
+      expect(rt011.statement).toMatch(
+        /TWA = Σ\(Cᵢ·tᵢ\)\/Σtᵢ, Σtᵢ = 360 min \(the sampled time\); the 120 unsampled minutes of the 480-min shift are taken as exposed at the average of the sampled periods/,
+      );
       expect(resultCount(context.db)).toBe(before);
       expect(statusOf(batchId)).toBe('uploaded');
     });
@@ -146,12 +152,25 @@ describe('lab CSV import', () => {
       const answer = await commit(batchId, { mapping, unsampledTime: 'zero' });
       expect(answer.status, JSON.stringify(answer.body)).toBe(201);
       expect(resultCount(context.db)).toBe(before + 4);
-      expect(answer.body.batch).toMatchObject({ status: 'committed', resultCount: 4, committedAt: '2025-03-03T08:00:00.000Z', committedByUserId: hygienist.user.id });
+      expect(answer.body.batch).toMatchObject({
+        status: 'committed',
+        resultCount: 4,
+        committedAt: '2025-03-03T08:00:00.000Z',
+        committedByUserId: hygienist.user.id,
+      });
       const byWorker = Object.fromEntries(answer.body.results.map((result: { worker: { code: string } }) => [result.worker.code, result]));
 
       // RT-011: (0.40 × 120 + 0.10 × 240) / 480 = 72 / 480 = 0.15 mg/m³
       expect(byWorker['RT-011'].value).toBeCloseTo(0.15, 12);
-      expect(byWorker['RT-011']).toMatchObject({ nonDetect: false, source: 'lab-import', importBatchId: batchId, sampleId: 'L-1001 + L-1002', startTime: '07:00', endTime: '13:00', sampledMinutes: 360 });
+      expect(byWorker['RT-011']).toMatchObject({
+        nonDetect: false,
+        source: 'lab-import',
+        importBatchId: batchId,
+        sampleId: 'L-1001 + L-1002',
+        startTime: '07:00',
+        endTime: '13:00',
+        sampledMinutes: 360,
+      });
       expect(byWorker['RT-011'].details.statement).toMatch(/the 120 unsampled minutes of the 480-min shift are taken as zero exposure/);
       expect(byWorker['RT-011'].details.statement).toMatch(/OSHA 29 CFR 1910\.1000\(d\)\(1\)\(i\)/);
 
@@ -172,7 +191,10 @@ describe('lab CSV import', () => {
       expect(byWorker['RT-001'].details.combination.assumption).toBe('single');
 
       expect(auditOf(context.db, 'import_batch', batchId).at(-1)).toMatchObject({ action: 'committed', after: { resultCount: 4, unsampledTime: 'zero' } });
-      expect(auditOf(context.db, 'shift_result', byWorker['RT-011'].id)[0]).toMatchObject({ action: 'created', after: { source: 'lab-import', importBatchId: batchId } });
+      expect(auditOf(context.db, 'shift_result', byWorker['RT-011'].id)[0]).toMatchObject({
+        action: 'created',
+        after: { source: 'lab-import', importBatchId: batchId },
+      });
       const results = await hygienist.get(`/api/orgs/${ridgeback}/shift-results?importBatchId=${batchId}`);
       expect(results.body.total).toBe(4);
     });
@@ -191,7 +213,11 @@ describe('lab CSV import', () => {
       expect(answer.status).toBe(400);
       const problems = answer.body.error.details.problems;
       expect(problems).toHaveLength(7);
-      expect(problems[0]).toEqual({ row: 2, column: null, message: expect.stringMatching(/^duplicate of result \d+, already stored \(same worker, date, group, agent and sample id "L-1001"\)$/) });
+      expect(problems[0]).toEqual({
+        row: 2,
+        column: null,
+        message: expect.stringMatching(/^duplicate of result \d+, already stored \(same worker, date, group, agent and sample id "L-1001"\)$/),
+      });
       expect(answer.body.error.message).toMatch(/^The lab import was refused \(7 problems; nothing was stored\): row 2: duplicate of result/);
       expect(resultCount(context.db)).toBe(before);
     });
@@ -199,7 +225,12 @@ describe('lab CSV import', () => {
 
   describe('units', () => {
     it('ppm is converted to the group’s mg/m³ from the molecular weight; µg/m³ by 1/1000', async () => {
-      const toluene = await hygienist.post(`/api/orgs/${ridgeback}/agents`, { name: 'Toluene', kind: 'chemical', casNumber: '108-88-3', molecularWeight: 92.14 });
+      const toluene = await hygienist.post(`/api/orgs/${ridgeback}/agents`, {
+        name: 'Toluene',
+        kind: 'chemical',
+        casNumber: '108-88-3',
+        molecularWeight: 92.14,
+      });
       const group = await hygienist.post(`/api/orgs/${ridgeback}/exposure-groups`, {
         siteId: siteId(context.db, ridgeback, 'Ridgeback sawmill'),
         name: 'Saw filer – solvent',
@@ -210,7 +241,11 @@ describe('lab CSV import', () => {
         oelAveragingTime: '8h-twa',
       });
       for (const code of ['RT-006', 'RT-007'])
-        await hygienist.post(`/api/orgs/${ridgeback}/group-memberships`, { workerId: workerId(context.db, ridgeback, code), exposureGroupId: group.body.id, fromDate: '2025-01-01' });
+        await hygienist.post(`/api/orgs/${ridgeback}/group-memberships`, {
+          workerId: workerId(context.db, ridgeback, code),
+          exposureGroupId: group.body.id,
+          fromDate: '2025-01-01',
+        });
       const uploaded = await upload(['Employee;Sample date;Conc;Unit', 'RT-006;2025-01-22;100;ppm', 'RT-007;2025-01-22;1500;µg/m³'].join('\n'));
       expect(uploaded.body.batch.delimiter).toBe(';');
       expect(uploaded.body.preview.suggestedMapping).toMatchObject({ workerCode: 'Employee', date: 'Sample date', value: 'Conc', unit: 'Unit', group: null });
@@ -254,7 +289,9 @@ describe('lab CSV import', () => {
     });
 
     it('4. a negative value', async () => {
-      const error = await expectRefused([header, `RT-011,2025-01-23,${planer},${dust},0.4,mg/m3,L-2002,,,`, `RT-012,2025-01-23,${planer},${dust},-0.3,mg/m3,L-2003,,,`].join('\n'));
+      const error = await expectRefused(
+        [header, `RT-011,2025-01-23,${planer},${dust},0.4,mg/m3,L-2002,,,`, `RT-012,2025-01-23,${planer},${dust},-0.3,mg/m3,L-2003,,,`].join('\n'),
+      );
       expect(error.details!.problems).toEqual([{ row: 3, column: 'Result', message: 'the value must be above 0, got "-0.3"' }]);
     });
 
@@ -276,7 +313,9 @@ describe('lab CSV import', () => {
     });
 
     it('8. a worker who is not in the group on that date', async () => {
-      const error = await expectRefused([header, `RT-003,2025-01-23,${planer},${dust},0.4,mg/m3,L-2007,,,`, `RT-005,2024-02-01,${planer},${dust},0.4,mg/m3,L-2008,,,`].join('\n'));
+      const error = await expectRefused(
+        [header, `RT-003,2025-01-23,${planer},${dust},0.4,mg/m3,L-2007,,,`, `RT-005,2024-02-01,${planer},${dust},0.4,mg/m3,L-2008,,,`].join('\n'),
+      );
       expect(error.details!.problems).toEqual([
         { row: 2, column: 'Worker', message: 'RT-003 is not a member of "Planer feeder – wood dust" on 2025-01-23 (never a member)' },
         { row: 3, column: 'Worker', message: 'RT-005 is not a member of "Planer feeder – wood dust" on 2024-02-01 (member 2024-03-04 – open)' },
@@ -296,10 +335,16 @@ describe('lab CSV import', () => {
 
     it('10. mixed delimiters', async () => {
       const error = await expectUploadRefused(
-        [header, `RT-011,2025-01-23,${planer},${dust},0.4,mg/m3,L-2010,,,Test lab`, `RT-012;2025-01-23;${planer};${dust};0.5;mg/m3;L-2011;;;Test lab`].join('\n'),
+        [header, `RT-011,2025-01-23,${planer},${dust},0.4,mg/m3,L-2010,,,Test lab`, `RT-012;2025-01-23;${planer};${dust};0.5;mg/m3;L-2011;;;Test lab`].join(
+          '\n',
+        ),
       );
       expect(error.details!.problems).toEqual([
-        { row: 3, column: null, message: '1 field where the header has 10: this row seems to use a semicolon where the header uses a comma — use one delimiter throughout' },
+        {
+          row: 3,
+          column: null,
+          message: '1 field where the header has 10: this row seems to use a semicolon where the header uses a comma — use one delimiter throughout',
+        },
       ]);
     });
 
@@ -342,8 +387,14 @@ describe('lab CSV import', () => {
         [header, `RT-011,2025-01-23,${planer},${dust},0.4,mg/m3,L-2013,,,`, `RT-011,2025-01-23,${planer},${dust},0.2,mg/m3,L-2014,,,`].join('\n'),
       );
       expect(error.details!.problems.map((problem) => [problem.row, problem.message])).toEqual([
-        [2, 'RT-011 on 2025-01-23 in "Planer feeder – wood dust" has 2 samples: each needs its minutes or its start and end times to be combined into a shift TWA'],
-        [3, 'RT-011 on 2025-01-23 in "Planer feeder – wood dust" has 2 samples: each needs its minutes or its start and end times to be combined into a shift TWA'],
+        [
+          2,
+          'RT-011 on 2025-01-23 in "Planer feeder – wood dust" has 2 samples: each needs its minutes or its start and end times to be combined into a shift TWA',
+        ],
+        [
+          3,
+          'RT-011 on 2025-01-23 in "Planer feeder – wood dust" has 2 samples: each needs its minutes or its start and end times to be combined into a shift TWA',
+        ],
       ]);
     });
 
@@ -358,13 +409,20 @@ describe('lab CSV import', () => {
         ].join('\n'),
       );
       expect(error.details!.problems).toEqual([
-        { row: 2, column: null, message: 'the samples of RT-011 on 2025-01-23 in "Planer feeder – wood dust" cover 660 min, more than the 480-min shift: check the times, or give the shift length (shiftHours)' },
+        {
+          row: 2,
+          column: null,
+          message:
+            'the samples of RT-011 on 2025-01-23 in "Planer feeder – wood dust" cover 660 min, more than the 480-min shift: check the times, or give the shift length (shiftHours)',
+        },
         { row: 5, column: null, message: 'this sample (09:30–12:00) overlaps the one in row 4 (07:00–10:00)' },
       ]);
     });
 
     it('17. the same sample twice in one file', async () => {
-      const error = await expectRefused([header, `RT-011,2025-01-23,${planer},${dust},0.4,mg/m3,L-2019,,,`, `RT-011,2025-01-23,${planer},${dust},0.4,mg/m3,L-2019,,,`].join('\n'));
+      const error = await expectRefused(
+        [header, `RT-011,2025-01-23,${planer},${dust},0.4,mg/m3,L-2019,,,`, `RT-011,2025-01-23,${planer},${dust},0.4,mg/m3,L-2019,,,`].join('\n'),
+      );
       expect(error.details!.problems).toEqual([{ row: 3, column: null, message: 'repeats row 2 (same worker, date, group, agent and sample id "L-2019")' }]);
     });
 
@@ -387,7 +445,9 @@ describe('lab CSV import', () => {
     });
 
     it('19. a date in the future, and an agent that is not the group’s', async () => {
-      const error = await expectRefused([header, `RT-011,2025-03-10,${planer},${dust},0.4,mg/m3,L-2025,,,`, `RT-012,2025-01-23,${planer},Noise,0.4,mg/m3,L-2026,,,`].join('\n'));
+      const error = await expectRefused(
+        [header, `RT-011,2025-03-10,${planer},${dust},0.4,mg/m3,L-2025,,,`, `RT-012,2025-01-23,${planer},Noise,0.4,mg/m3,L-2026,,,`].join('\n'),
+      );
       expect(error.details!.problems).toEqual([
         { row: 2, column: 'Date', message: '2025-03-10 is in the future' },
         { row: 3, column: 'Analyte', message: '"Noise" is not the agent of "Planer feeder – wood dust" (which is for "Inhalable wood dust")' },
@@ -436,7 +496,10 @@ describe('lab CSV import', () => {
     it('an upload without a file answers 400 naming the form field', async () => {
       const answer = await hygienist.post(base, { file: 'not a file' });
       expect(answer.status).toBe(400);
-      expect(answer.body.error).toMatchObject({ message: 'Attach the lab results as a CSV file in the multipart form field "file"', fields: { file: 'Attach a CSV file' } });
+      expect(answer.body.error).toMatchObject({
+        message: 'Attach the lab results as a CSV file in the multipart form field "file"',
+        fields: { file: 'Attach a CSV file' },
+      });
     });
   });
 });

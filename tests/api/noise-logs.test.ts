@@ -131,7 +131,17 @@ describe('noise logs', () => {
     expect(preview.status).toBe(200);
     expect(preview.body.headers).toEqual(['time_ms', 'LAeq', 'ax', 'ay', 'az', 'apk']);
     expect(preview.body.rows[0]).toEqual(['0', '88', '0', '0', '1', '1.1']);
-    const mapping = { time: 'time_ms', timeUnit: 'ms', level: 'LAeq', accelerationX: 'ax', accelerationY: 'ay', accelerationZ: 'az', accelerationPeak: 'apk', accelerationUnit: 'g', intervalSeconds: 1 };
+    const mapping = {
+      time: 'time_ms',
+      timeUnit: 'ms',
+      level: 'LAeq',
+      accelerationX: 'ax',
+      accelerationY: 'ay',
+      accelerationZ: 'az',
+      accelerationPeak: 'apk',
+      accelerationUnit: 'g',
+      intervalSeconds: 1,
+    };
     const answer = await upload(text, { mapping: JSON.stringify(mapping), presetName: 'Semicolon meter' }, 'other.csv');
     expect(answer.status, JSON.stringify(answer.body)).toBe(201);
     expect(answer.body.figures.runSeconds).toBe(120);
@@ -158,7 +168,11 @@ describe('noise logs', () => {
     expect(added.body.status).toBe('reviewed');
     const maskId = added.body.masks[0].id as number;
     // Extending to 6 h masks 120 intervals at 85 too: the remaining 2 h at 85 still average 85 → 100 %.
-    const extended = await hygienist.patch(`${base}/noise-logs/${logId}/masks/${maskId}`, { startS: 0, endS: 21_600, reason: 'meter on the bench until 12:00' });
+    const extended = await hygienist.patch(`${base}/noise-logs/${logId}/masks/${maskId}`, {
+      startS: 0,
+      endS: 21_600,
+      reason: 'meter on the bench until 12:00',
+    });
     expect(extended.status).toBe(200);
     expect(extended.body.figures.maskedSeconds).toBe(21_600);
     // Shortening to 2 h: 2 h at 88 (50 %) + 4 h at 85 (50 %) over 6 h unmasked, × 8/6 → 133.33 %.

@@ -77,7 +77,12 @@ describe('organization routes check membership and role on the server', () => {
     const answer = await admin.patch(`/api/orgs/${ridgeback}/members/${analyst.id}`, { role: 'hygienist' });
     expect(answer.status).toBe(200);
     expect(answer.body).toMatchObject({ id: analyst.id, role: 'hygienist', active: true });
-    const event = context.db.select().from(auditEvents).where(eq(auditEvents.entityId, String(analyst.id))).all().at(-1)!;
+    const event = context.db
+      .select()
+      .from(auditEvents)
+      .where(eq(auditEvents.entityId, String(analyst.id)))
+      .all()
+      .at(-1)!;
     expect(event).toMatchObject({
       organizationId: ridgeback,
       actorUserId: admin.user.id,

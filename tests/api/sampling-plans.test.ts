@@ -37,7 +37,15 @@ describe('sampling plans', () => {
     const answer = await hygienist.post(plansPath, { ...window, title: 'Winter 2025' });
     expect(answer.status).toBe(201);
     firstPlan = answer.body;
-    expect(answer.body).toMatchObject({ exposureGroupId: group, exposureGroupName: 'Maintenance fitter – noise', targetCount: 6, includeWeekends: false, draw: 1, availableShifts: 60, warnings: [] });
+    expect(answer.body).toMatchObject({
+      exposureGroupId: group,
+      exposureGroupName: 'Maintenance fitter – noise',
+      targetCount: 6,
+      includeWeekends: false,
+      draw: 1,
+      availableShifts: 60,
+      warnings: [],
+    });
     expect(answer.body.seed).toBeGreaterThanOrEqual(1);
     expect(answer.body.picks).toHaveLength(6);
     for (const pick of answer.body.picks as Pick[]) {
@@ -46,11 +54,24 @@ describe('sampling plans', () => {
       expect(pick.date >= window.startDate && pick.date <= window.endDate).toBe(true);
     }
     expect(new Set(shiftsOf(answer.body.picks)).size).toBe(6);
-    expect(answer.body.progress).toEqual({ targetCount: 6, picked: 6, done: 0, remaining: 6, percentOfTarget: 0, validResultsInWindow: 0, unplannedResultsInWindow: 0 });
+    expect(answer.body.progress).toEqual({
+      targetCount: 6,
+      picked: 6,
+      done: 0,
+      remaining: 6,
+      percentOfTarget: 0,
+      validResultsInWindow: 0,
+      unplannedResultsInWindow: 0,
+    });
     expect(answer.body.guidance.text).toMatch(/EN 689:2018 applies its statistical test from 6 results/);
     expect(answer.body.guidance.text).toMatch(/6 to 10 shifts per group/);
-    expect(answer.body.guidance.sources.map((source: { citation: string }) => source.citation).join(' ')).toMatch(/AIHA, A Strategy for Assessing and Managing Occupational Exposures/);
-    expect(auditOf(context.db, 'sampling_plan', answer.body.id)[0]).toMatchObject({ action: 'created', after: { seed: answer.body.seed, targetCount: 6, availableShifts: 60 } });
+    expect(answer.body.guidance.sources.map((source: { citation: string }) => source.citation).join(' ')).toMatch(
+      /AIHA, A Strategy for Assessing and Managing Occupational Exposures/,
+    );
+    expect(auditOf(context.db, 'sampling_plan', answer.body.id)[0]).toMatchObject({
+      action: 'created',
+      after: { seed: answer.body.seed, targetCount: 6, availableShifts: 60 },
+    });
   });
 
   it('the same seed and window draw the same worker-shifts', async () => {
@@ -70,7 +91,11 @@ describe('sampling plans', () => {
     expect(answer.body.picks).toHaveLength(8);
     const firstSix = (answer.body.picks as Pick[]).filter((pick) => pick.position <= 6);
     expect(shiftsOf(firstSix).sort()).toEqual(shiftsOf(firstPlan.picks).sort());
-    expect(auditOf(context.db, 'sampling_plan', firstPlan.id).at(-1)).toMatchObject({ action: 'updated_and_redrawn', before: { targetCount: 6, draw: 1 }, after: { targetCount: 8, draw: 2 } });
+    expect(auditOf(context.db, 'sampling_plan', firstPlan.id).at(-1)).toMatchObject({
+      action: 'updated_and_redrawn',
+      before: { targetCount: 6, draw: 1 },
+      after: { targetCount: 8, draw: 2 },
+    });
   });
 
   it('a redraw makes a new seed, new picks and an audit event with both seeds and the reason', async () => {
@@ -93,14 +118,31 @@ describe('sampling plans', () => {
   it('progress counts a pick as done once a valid result exists for that worker and date, and notes results off the plan', async () => {
     const plan = (await hygienist.get(planPath(firstPlan.id))).body;
     const pick: Pick = plan.picks[0];
-    const entered = await hygienist.post(`/api/orgs/${ridgeback}/shift-results`, { exposureGroupId: group, workerId: pick.worker.id, date: pick.date, value: 64 });
+    const entered = await hygienist.post(`/api/orgs/${ridgeback}/shift-results`, {
+      exposureGroupId: group,
+      workerId: pick.worker.id,
+      date: pick.date,
+      value: 64,
+    });
     expect(entered.status, JSON.stringify(entered.body)).toBe(201);
     const pickedShifts = new Set(shiftsOf(plan.picks));
-    const offPlan = ['2025-01-06', '2025-01-07', '2025-01-08'].map((date) => ({ date, code: 'RT-009' })).find((shift) => !pickedShifts.has(`${shift.code}@${shift.date}`))!;
+    const offPlan = ['2025-01-06', '2025-01-07', '2025-01-08']
+      .map((date) => ({ date, code: 'RT-009' }))
+      .find((shift) => !pickedShifts.has(`${shift.code}@${shift.date}`))!;
     const rt009 = (await hygienist.get(`/api/orgs/${ridgeback}/workers?q=RT-009`)).body.items[0].id;
-    expect((await hygienist.post(`/api/orgs/${ridgeback}/shift-results`, { exposureGroupId: group, workerId: rt009, date: offPlan.date, value: 40 })).status).toBe(201);
+    expect(
+      (await hygienist.post(`/api/orgs/${ridgeback}/shift-results`, { exposureGroupId: group, workerId: rt009, date: offPlan.date, value: 40 })).status,
+    ).toBe(201);
     const after = (await hygienist.get(planPath(firstPlan.id))).body;
-    expect(after.progress).toMatchObject({ targetCount: 8, picked: 8, done: 1, remaining: 7, percentOfTarget: 12, validResultsInWindow: 2, unplannedResultsInWindow: 1 });
+    expect(after.progress).toMatchObject({
+      targetCount: 8,
+      picked: 8,
+      done: 1,
+      remaining: 7,
+      percentOfTarget: 12,
+      validResultsInWindow: 2,
+      unplannedResultsInWindow: 1,
+    });
     expect(after.picks.find((item: Pick) => item.position === pick.position)).toMatchObject({ done: true, resultId: entered.body.id });
   });
 

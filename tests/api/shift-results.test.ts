@@ -55,7 +55,10 @@ describe('shift results: manual entry, void and restore', () => {
       voidedBy: null,
     });
     expect(answer.body.details.statement).toBe('Entered by hand as the shift result, 0.82 mg/m³.');
-    expect(auditOf(context.db, 'shift_result', answer.body.id)[0]).toMatchObject({ action: 'created', after: { value: 0.82, unit: 'mg/m3', source: 'entered' } });
+    expect(auditOf(context.db, 'shift_result', answer.body.id)[0]).toMatchObject({
+      action: 'created',
+      after: { value: 0.82, unit: 'mg/m3', source: 'entered' },
+    });
     expect(dataVersion(woodDust)).toBe(version + 1);
     const group = await hygienist.get(`/api/orgs/${ridgeback}/exposure-groups/${woodDust}`);
     expect(group.body.resultsChangedAt).toBe('2025-03-03T08:00:00.000Z');
@@ -121,14 +124,22 @@ describe('shift results: manual entry, void and restore', () => {
     // Half a unit in the last printed digit of 376.9: the reference value is rounded to 4 digits.
     expect(Math.abs(answer.body.value - 376.9)).toBeLessThanOrEqual(0.05);
     expect(answer.body).toMatchObject({ unit: 'mg/m3', reportedValue: 100, reportedUnit: 'ppm' });
-    expect(answer.body.details.conversion).toEqual({ from: 'ppm', to: 'mg/m3', molecularWeight: 92.14, molarVolumeLitres: 24.45, source: 'mg/m³ = ppm × MW / 24.45 at 25 °C and 760 torr (ACGIH)' });
+    expect(answer.body.details.conversion).toEqual({
+      from: 'ppm',
+      to: 'mg/m3',
+      molecularWeight: 92.14,
+      molarVolumeLitres: 24.45,
+      source: 'mg/m³ = ppm × MW / 24.45 at 25 °C and 760 torr (ACGIH)',
+    });
     expect(answer.body.details.statement).toMatch(/^Entered by hand as the shift result, 100 ppm, converted to 376\.85\d* mg\/m³/);
   });
 
   it('a second valid result for the same worker-shift answers 409 naming the existing one', async () => {
     const answer = await hygienist.post(base, { exposureGroupId: woodDust, workerId: rt001, date: '2025-01-14', value: 0.5 });
     expect(answer.status).toBe(409);
-    expect(answer.body.error.message).toMatch(/^RT-001 already has a valid result in "Head sawyer – wood dust" on 2025-01-14 \(result \d+\): void it first to record another$/);
+    expect(answer.body.error.message).toMatch(
+      /^RT-001 already has a valid result in "Head sawyer – wood dust" on 2025-01-14 \(result \d+\): void it first to record another$/,
+    );
   });
 
   it('voids a result with a reason (kept, audited with the reason, data version moves), then restores it', async () => {
@@ -140,7 +151,12 @@ describe('shift results: manual entry, void and restore', () => {
     expect(noReason.body.error.fields).toEqual({ reason: 'Give a reason' });
     const voided = await hygienist.post(`${base}/${id}/void`, { reason: 'Sampler dropped in the saw pit' });
     expect(voided.status).toBe(200);
-    expect(voided.body).toMatchObject({ status: 'void', voidReason: 'Sampler dropped in the saw pit', voidedAt: '2025-03-03T08:00:00.000Z', voidedBy: { name: 'Dana Whitlock' } });
+    expect(voided.body).toMatchObject({
+      status: 'void',
+      voidReason: 'Sampler dropped in the saw pit',
+      voidedAt: '2025-03-03T08:00:00.000Z',
+      voidedBy: { name: 'Dana Whitlock' },
+    });
     expect(dataVersion(woodDust)).toBe(version + 1);
     expect(auditOf(context.db, 'shift_result', id).at(-1)).toMatchObject({ action: 'voided', reason: 'Sampler dropped in the saw pit' });
     const again = await hygienist.post(`${base}/${id}/void`, { reason: 'twice' });
@@ -150,12 +166,18 @@ describe('shift results: manual entry, void and restore', () => {
     expect(replacement.status).toBe(201);
     const blocked = await hygienist.post(`${base}/${id}/restore`, { reason: 'Found the pump log' });
     expect(blocked.status).toBe(409);
-    expect(blocked.body.error.message).toBe(`Result ${replacement.body.id} is now the valid result for this worker and date: void it first to restore result ${id}`);
+    expect(blocked.body.error.message).toBe(
+      `Result ${replacement.body.id} is now the valid result for this worker and date: void it first to restore result ${id}`,
+    );
     await hygienist.post(`${base}/${replacement.body.id}/void`, { reason: 'Entered in error' });
     const restored = await hygienist.post(`${base}/${id}/restore`, { reason: 'Found the pump log' });
     expect(restored.status).toBe(200);
     expect(restored.body).toMatchObject({ status: 'valid', voidReason: null, voidedBy: null });
-    expect(auditOf(context.db, 'shift_result', id).at(-1)).toMatchObject({ action: 'restored', reason: 'Found the pump log', before: { status: 'void', voidReason: 'Sampler dropped in the saw pit' } });
+    expect(auditOf(context.db, 'shift_result', id).at(-1)).toMatchObject({
+      action: 'restored',
+      reason: 'Found the pump log',
+      before: { status: 'void', voidReason: 'Sampler dropped in the saw pit' },
+    });
     expect(dataVersion(woodDust)).toBe(version + 4); // void, replacement, its void, restore
   });
 

@@ -11,7 +11,16 @@ const cookieValue = (cookie: string | undefined) => cookie?.split(';')[0];
 describe('sign-in, sessions and CSRF', () => {
   let context: TestContext;
   beforeAll(async () => {
-    context = await createTestContext({ config: { rateLimits: { signIn: { limit: 3, windowMs: 60_000 }, signInPerAddress: { limit: 100, windowMs: 60_000 }, forgotPassword: { limit: 100, windowMs: 60_000 }, resetPassword: { limit: 100, windowMs: 60_000 } } } });
+    context = await createTestContext({
+      config: {
+        rateLimits: {
+          signIn: { limit: 3, windowMs: 60_000 },
+          signInPerAddress: { limit: 100, windowMs: 60_000 },
+          forgotPassword: { limit: 100, windowMs: 60_000 },
+          resetPassword: { limit: 100, windowMs: 60_000 },
+        },
+      },
+    });
   });
   afterAll(() => context.close());
 
@@ -92,9 +101,7 @@ describe('sign-in, sessions and CSRF', () => {
     expect(answer.status).toBe(403);
     expect(answer.body.error.code).toBe('csrf');
     expect(answer.body.error.message).toContain('X-CSRF-Token');
-    const wrongToken = await signedIn.agent
-      .post('/api/auth/sign-out')
-      .set('X-CSRF-Token', 'a'.repeat(43));
+    const wrongToken = await signedIn.agent.post('/api/auth/sign-out').set('X-CSRF-Token', 'a'.repeat(43));
     expect(wrongToken.status).toBe(403);
     expect(wrongToken.body.error.code).toBe('csrf');
   });

@@ -22,7 +22,13 @@ describe('sites', () => {
     expect(answer.status).toBe(201);
     expect(answer.body).toMatchObject({ name: 'Ridgeback kiln yard', description: 'Dry kilns and stickers.', archived: false, exposureGroupCount: 0 });
     const events = auditOf(context.db, 'site', answer.body.id);
-    expect(events).toEqual([expect.objectContaining({ action: 'created', actorUserId: hygienist.user.id, after: { name: 'Ridgeback kiln yard', description: 'Dry kilns and stickers.' } })]);
+    expect(events).toEqual([
+      expect.objectContaining({
+        action: 'created',
+        actorUserId: hygienist.user.id,
+        after: { name: 'Ridgeback kiln yard', description: 'Dry kilns and stickers.' },
+      }),
+    ]);
   });
 
   it('lists with search, sort and pages, and counts the groups in use per site', async () => {

@@ -92,7 +92,17 @@ describe('worker names are never sent to a role without workerNames:read (consul
   afterAll(() => context.close());
 
   /** Every demo worker name in Ridgeback, to look for in whole answers. */
-  const names = ['Alex Corran', 'Billie Tarrant', 'Sam Okafor-Reid', 'Kit Lindqvist', 'Robin Achterberg', 'Jesse Maranta', 'Noor Haddley', 'Frankie Dunmore', 'Lee Varga'];
+  const names = [
+    'Alex Corran',
+    'Billie Tarrant',
+    'Sam Okafor-Reid',
+    'Kit Lindqvist',
+    'Robin Achterberg',
+    'Jesse Maranta',
+    'Noor Haddley',
+    'Frankie Dunmore',
+    'Lee Varga',
+  ];
   const expectNoNames = (body: unknown) => {
     const text = JSON.stringify(body);
     for (const name of names) expect(text).not.toContain(name);
@@ -168,7 +178,14 @@ describe('group membership over time', () => {
     const group = groupId(context.db, ridgeback, 'Planer feeder – noise');
     const answer = await hygienist.post(path(), { workerId: worker, exposureGroupId: group, fromDate: '2025-01-06', toDate: null });
     expect(answer.status).toBe(201);
-    expect(answer.body).toMatchObject({ workerId: worker, exposureGroupId: group, fromDate: '2025-01-06', toDate: null, groupName: 'Planer feeder – noise', current: true });
+    expect(answer.body).toMatchObject({
+      workerId: worker,
+      exposureGroupId: group,
+      fromDate: '2025-01-06',
+      toDate: null,
+      groupName: 'Planer feeder – noise',
+      current: true,
+    });
     expect(auditOf(context.db, 'group_membership', answer.body.id)[0]).toMatchObject({ action: 'created', after: { fromDate: '2025-01-06', toDate: null } });
     const shown = await hygienist.get(`/api/orgs/${ridgeback}/workers/${worker}`);
     expect(shown.body.memberships.map((membership: { groupName: string }) => membership.groupName)).toContain('Planer feeder – noise');
@@ -208,7 +225,11 @@ describe('group membership over time', () => {
     const answer = await hygienist.patch(`${path()}/${december.id}`, { fromDate: '2024-12-02' });
     expect(answer.status).toBe(200);
     expect(answer.body).toMatchObject({ fromDate: '2024-12-02', toDate: '2025-01-05' });
-    expect(auditOf(context.db, 'group_membership', december.id).at(-1)).toMatchObject({ action: 'updated', before: { fromDate: '2024-12-01' }, after: { fromDate: '2024-12-02' } });
+    expect(auditOf(context.db, 'group_membership', december.id).at(-1)).toMatchObject({
+      action: 'updated',
+      before: { fromDate: '2024-12-01' },
+      after: { fromDate: '2024-12-02' },
+    });
     const empty = await hygienist.patch(`${path()}/${december.id}`, {});
     expect(empty.status).toBe(400);
     expect(empty.body.error.message).toBe('Check the request body: Give fromDate or toDate');
@@ -220,7 +241,9 @@ describe('group membership over time', () => {
     const rt006 = members.body.find((member: { worker: { code: string } }) => member.worker.code === 'RT-006');
     const answer = await hygienist.patch(`${path()}/${rt006.id}`, { toDate: '2024-08-30' });
     expect(answer.status).toBe(409);
-    expect(answer.body.error.message).toMatch(/^RT-006 has \d+ valid shift result\(s\) in "Saw filer – noise" that the new dates would leave outside any membership/);
+    expect(answer.body.error.message).toMatch(
+      /^RT-006 has \d+ valid shift result\(s\) in "Saw filer – noise" that the new dates would leave outside any membership/,
+    );
     const unchanged = await hygienist.get(`/api/orgs/${ridgeback}/exposure-groups/${group}/members`);
     expect(unchanged.body.find((member: { id: number }) => member.id === rt006.id).toDate).toBeNull();
   });

@@ -59,10 +59,24 @@ export const run: BenchModule['run'] = async () => {
 
   const uncertain: ShiftValue[] = [0.12, 0.2, 0.09, 0.3, 0.16].map((value) => ({ value, nonDetect: false }));
   const plannerMs = await medianMs(5, () => samplePlanner(uncertain, { oel: 1, seed: seed++ }), 1);
-  rows.push({ suite: 'bayes', name: 'Sample planner, k = 1..12, 2,000 futures (n 5, complete data)', value: plannerMs / 1000, unit: 's', target: 2, note: `median of 5; ${loadNote()}` });
+  rows.push({
+    suite: 'bayes',
+    name: 'Sample planner, k = 1..12, 2,000 futures (n 5, complete data)',
+    value: plannerMs / 1000,
+    unit: 's',
+    target: 2,
+    note: `median of 5; ${loadNote()}`,
+  });
   const censoredSmall = censoredGroup(2, 10);
   const plannerCensoredMs = await medianMs(5, () => samplePlanner(censoredSmall, { oel: 0.5, seed: seed++ }), 1);
-  rows.push({ suite: 'bayes', name: 'Sample planner, k = 1..12, 2,000 futures (n 10, 3 non-detects)', value: plannerCensoredMs / 1000, unit: 's', target: 2, note: `median of 5; ${loadNote()}` });
+  rows.push({
+    suite: 'bayes',
+    name: 'Sample planner, k = 1..12, 2,000 futures (n 10, 3 non-detects)',
+    value: plannerCensoredMs / 1000,
+    unit: 's',
+    target: 2,
+    note: `median of 5; ${loadNote()}`,
+  });
 
   // 20 groups through the command, process start included.
   const folder = mkdtempSync(path.join(os.tmpdir(), 'bayes-bench-'));
@@ -73,7 +87,12 @@ export const run: BenchModule['run'] = async () => {
     }
     const file = path.join(folder, 'groups.csv');
     writeFileSync(file, `${lines.join('\n')}\n`);
-    const runCli = () => execFileSync('npm', ['run', '-s', 'assess', '--', '--input', file, '--oel', '1', '--bayes'], { cwd: root, encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
+    const runCli = () =>
+      execFileSync('npm', ['run', '-s', 'assess', '--', '--input', file, '--oel', '1', '--bayes'], {
+        cwd: root,
+        encoding: 'utf8',
+        maxBuffer: 64 * 1024 * 1024,
+      });
     const output = JSON.parse(runCli()) as { groups: { bayes: unknown }[] };
     const filled = output.groups.filter((g) => g.bayes !== null).length;
     const cliMs = await medianMs(3, runCli, 1);

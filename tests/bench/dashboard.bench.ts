@@ -35,8 +35,24 @@ export async function run(): Promise<BenchRow[]> {
     const stamp = clock.now().toISOString();
     const times = { createdAt: stamp, updatedAt: stamp };
     db.transaction((tx) => {
-      const siteIds = Array.from({ length: 20 }, (_, index) => tx.insert(sites).values({ organizationId, name: `Bench site ${index + 1}`, ...times }).returning().get().id);
-      const workerIds = Array.from({ length: resultsPerGroup }, (_, index) => tx.insert(workers).values({ organizationId, code: `BW-${index + 1}`, ...times }).returning().get().id);
+      const siteIds = Array.from(
+        { length: 20 },
+        (_, index) =>
+          tx
+            .insert(sites)
+            .values({ organizationId, name: `Bench site ${index + 1}`, ...times })
+            .returning()
+            .get().id,
+      );
+      const workerIds = Array.from(
+        { length: resultsPerGroup },
+        (_, index) =>
+          tx
+            .insert(workers)
+            .values({ organizationId, code: `BW-${index + 1}`, ...times })
+            .returning()
+            .get().id,
+      );
       for (let group = 0; group < extraGroups; group += 1) {
         const groupId = tx
           .insert(exposureGroups)
@@ -56,15 +72,35 @@ export async function run(): Promise<BenchRow[]> {
           .get().id;
         const planId = tx
           .insert(samplingPlans)
-          .values({ organizationId, exposureGroupId: groupId, targetCount: resultsPerGroup, startDate: '2024-01-01', endDate: '2024-12-31', seed: group + 1, ...times })
+          .values({
+            organizationId,
+            exposureGroupId: groupId,
+            targetCount: resultsPerGroup,
+            startDate: '2024-01-01',
+            endDate: '2024-12-31',
+            seed: group + 1,
+            ...times,
+          })
           .returning()
           .get().id;
         for (let index = 0; index < resultsPerGroup; index += 1) {
           const date = `2024-${String(1 + (index % 12)).padStart(2, '0')}-${String(1 + index).padStart(2, '0')}`;
           tx.insert(shiftResults)
-            .values({ organizationId, exposureGroupId: groupId, workerId: workerIds[index], agentId, date, value: 0.1 + index / 100, unit: 'mg/m3', source: 'entered', ...times })
+            .values({
+              organizationId,
+              exposureGroupId: groupId,
+              workerId: workerIds[index],
+              agentId,
+              date,
+              value: 0.1 + index / 100,
+              unit: 'mg/m3',
+              source: 'entered',
+              ...times,
+            })
             .run();
-          tx.insert(plannedPicks).values({ organizationId, samplingPlanId: planId, draw: 1, workerId: workerIds[index], date, position: index + 1 }).run();
+          tx.insert(plannedPicks)
+            .values({ organizationId, samplingPlanId: planId, draw: 1, workerId: workerIds[index], date, position: index + 1 })
+            .run();
         }
         tx.insert(decisionRecords)
           .values({

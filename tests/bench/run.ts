@@ -16,20 +16,37 @@ const files = readdirSync(here)
   .sort();
 
 const rows: BenchRow[] = [];
+const loadAtStart = os.loadavg();
+let failures = 0;
 for (const file of files) {
-  const mod = (await import(pathToFileURL(path.join(here, file)).href)) as BenchModule;
   process.stderr.write(`running ${file}\n`);
-  rows.push(...(await mod.run()));
+  try {
+    const mod = (await import(pathToFileURL(path.join(here, file)).href)) as BenchModule;
+    rows.push(...(await mod.run()));
+  } catch (error) {
+    // One broken benchmark must not hide the others' figures: it shows as a failed row and the exit code.
+    failures += 1;
+    process.stderr.write(`${file} failed: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
+    rows.push({
+      suite: file.replace(/\.bench\.ts$/, ''),
+      name: `${file} did not finish`,
+      value: Number.NaN,
+      unit: '',
+      note: error instanceof Error ? error.message.split('\n')[0] : String(error),
+    });
+  }
 }
 
 const verdict = (r: BenchRow) =>
-  r.target === undefined ? '' : (r.direction === 'min' ? r.value >= r.target : r.value <= r.target) ? 'met' : 'MISSED';
+  Number.isNaN(r.value) ? 'FAILED' : r.target === undefined ? '' : (r.direction === 'min' ? r.value >= r.target : r.value <= r.target) ? 'met' : 'MISSED';
+const figure = (value: number) => (Number.isNaN(value) ? '—' : Number.isInteger(value) ? String(value) : value < 10 ? value.toFixed(3) : value.toFixed(1));
 const table = rows.map((r) => ({
   suite: r.suite,
-  benchmark: r.name,
-  value: `${r.value < 10 ? r.value.toFixed(3) : r.value.toFixed(1)} ${r.unit}`,
-  target: r.target === undefined ? '' : `${r.direction === 'min' ? '≥' : '≤'} ${r.target} ${r.unit}`,
-  verdict: verdict(r),
+  name: r.name,
+  figure: figure(r.value),
+  unit: r.unit,
+  target: r.target === undefined ? '' : `${r.direction === 'min' ? '≥' : '≤'} ${r.target}`,
+  'met?': verdict(r),
   note: r.note ?? '',
 }));
 console.table(table);
@@ -40,6 +57,8 @@ const machine = {
   memoryGiB: Math.round(os.totalmem() / 2 ** 30),
   node: process.version,
   platform: `${os.platform()} ${os.release()}`,
+  loadAverageAtStart: loadAtStart.map((load) => Number(load.toFixed(2))),
+  loadAverageAtEnd: os.loadavg().map((load) => Number(load.toFixed(2))),
 };
 const out = path.resolve(here, '../../bench-results');
 mkdirSync(out, { recursive: true });
@@ -48,3 +67,4 @@ writeFileSync(
   JSON.stringify({ ranAt: new Date().toISOString(), machine, rows: rows.map((r) => ({ ...r, verdict: verdict(r) })) }, null, 2),
 );
 console.log(`wrote ${path.relative(process.cwd(), path.join(out, 'latest.json'))}`);
+if (failures > 0) process.exitCode = 1;

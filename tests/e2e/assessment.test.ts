@@ -29,10 +29,9 @@ async function groupAddress(page: Page, name: string): Promise<{ organizationId:
 }
 
 async function assessmentAnswer(page: Page, organizationId: number, groupId: number, query = ''): Promise<AssessmentAnswer> {
-  return page.evaluate(
-    async ([path]) => (await (await fetch(path)).json()) as AssessmentAnswer,
-    [`/api/orgs/${organizationId}/exposure-groups/${groupId}/assessment${query}`] as const,
-  );
+  return page.evaluate(async ([path]) => (await (await fetch(path)).json()) as AssessmentAnswer, [
+    `/api/orgs/${organizationId}/exposure-groups/${groupId}/assessment${query}`,
+  ] as const);
 }
 
 describe('group assessment page', () => {

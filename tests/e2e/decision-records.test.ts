@@ -26,7 +26,10 @@ describe('decision records and the dashboard', () => {
     await hygienist.page.getByRole('link', { name: 'Draft a decision record' }).click();
     await hygienist.page.getByRole('heading', { level: 1, name: 'Draft a decision record' }).waitFor();
     await hygienist.page.getByText('Figures approval would freeze now').waitFor({ timeout: engineWait });
-    await hygienist.page.getByText(/EN 689:2018 reassessment guidance \(from memory\)/).first().waitFor();
+    await hygienist.page
+      .getByText(/EN 689:2018 reassessment guidance \(from memory\)/)
+      .first()
+      .waitFor();
     // An empty rationale is refused in the browser, tied to its field.
     await hygienist.page.getByRole('button', { name: 'Submit for review' }).click();
     await hygienist.page.getByText('Write the rationale').waitFor();
@@ -78,7 +81,10 @@ describe('decision records and the dashboard', () => {
     await manager.page.getByRole('heading', { level: 1, name: group }).waitFor();
     await manager.page.getByRole('heading', { level: 2, name: 'What changed between approved records' }).waitFor();
     await screenshot(manager.page, 'decision-records-group-manager');
-    await manager.page.getByRole('link', { name: /^Record \d+$/ }).first().click();
+    await manager.page
+      .getByRole('link', { name: /^Record \d+$/ })
+      .first()
+      .click();
     await manager.page.waitForURL((url) => url.pathname === recordPath);
     await manager.page.getByRole('button', { name: 'Acknowledge this decision' }).click();
     await manager.page.getByText(/You acknowledged this record on/).waitFor();

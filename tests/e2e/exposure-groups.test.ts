@@ -29,21 +29,31 @@ const table = (page: Page, caption: string | RegExp): Locator => page.getByRole(
 /** The picked worker-shifts as "date worker" lines, in the order shown. */
 async function picksShown(page: Page): Promise<string[]> {
   const rows = table(page, /Picked worker-shifts/).locator('tbody tr');
-  return rows.evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].slice(0, 2).map((td) => td.textContent?.trim()).join(' | ')));
+  return rows.evaluateAll((trs) =>
+    trs.map((tr) =>
+      [...tr.querySelectorAll('td')]
+        .slice(0, 2)
+        .map((td) => td.textContent?.trim())
+        .join(' | '),
+    ),
+  );
 }
 
 describe('an exposure group, from set-up to results', () => {
   it('a hygienist sets up a group, adds a member, draws a plan that a reload keeps, enters a result, voids and restores it', async () => {
     const { context, page, assertClean } = await open();
     await signIn(page, demoUsers.hygienist);
-    const base = organizationBase(page);
+    organizationBase(page); // signed in on an organization page (throws otherwise)
     expect(await navigationItems(page)).toEqual(expect.arrayContaining(['Exposure groups', 'Workers', 'Sites', 'Agents & OELs', 'Import results']));
 
     // Set up the group from the list page.
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Exposure groups' }).click();
     await page.waitForURL(/\/exposure-groups$/);
     await page.getByRole('heading', { level: 1, name: 'Exposure groups' }).waitFor();
-    await table(page, /^Exposure groups/).locator('tbody tr').first().waitFor();
+    await table(page, /^Exposure groups/)
+      .locator('tbody tr')
+      .first()
+      .waitFor();
     await page.getByRole('link', { name: 'New exposure group' }).click();
     await page.getByRole('heading', { level: 1, name: 'New exposure group' }).waitFor();
     await page.getByLabel('Name', { exact: true }).fill('Trimmer operator – noise');
@@ -101,14 +111,20 @@ describe('an exposure group, from set-up to results', () => {
     await planDialog.getByLabel('Seed (optional)').fill('20240902');
     await planDialog.getByRole('button', { name: 'Draw the plan' }).click();
     await page.getByText('Plan drawn: 6 worker-shifts picked with seed 20240902.').waitFor();
-    await table(page, /Picked worker-shifts/).locator('tbody tr').nth(5).waitFor();
+    await table(page, /Picked worker-shifts/)
+      .locator('tbody tr')
+      .nth(5)
+      .waitFor();
     const picks = await picksShown(page);
     expect(picks).toHaveLength(6);
     expect(picks.every((pick) => pick.endsWith('| RT-003'))).toBe(true);
     await page.getByText('0 of 6 shifts measured').waitFor();
 
     await page.reload();
-    await table(page, /Picked worker-shifts/).locator('tbody tr').nth(5).waitFor();
+    await table(page, /Picked worker-shifts/)
+      .locator('tbody tr')
+      .nth(5)
+      .waitFor();
     expect(await picksShown(page)).toEqual(picks);
     expect(await page.getByTestId('plan-seed').innerText()).toContain('20240902');
 
@@ -120,7 +136,12 @@ describe('an exposure group, from set-up to results', () => {
     expect(await sheetRows.count()).toBe(6);
     await screenshot(page, 'field-sheet-screen');
     await page.emulateMedia({ media: 'print' });
-    expect(await page.getByRole('complementary').filter({ has: page.getByRole('navigation', { name: 'Main' }) }).isVisible()).toBe(false);
+    expect(
+      await page
+        .getByRole('complementary')
+        .filter({ has: page.getByRole('navigation', { name: 'Main' }) })
+        .isVisible(),
+    ).toBe(false);
     expect(await page.getByRole('button', { name: 'Print' }).isVisible()).toBe(false);
     await screenshot(page, 'field-sheet-print');
     await page.emulateMedia({ media: 'screen' });
@@ -201,8 +222,18 @@ describe('an exposure group, from set-up to results', () => {
 
     await page.getByRole('link', { name: 'Field sheet' }).first().click();
     await page.getByText('30 worker-shifts on 2 printed pages (25 rows each, A4 landscape).').waitFor();
-    expect(await page.getByRole('table', { name: /Picked worker-shifts, page 1/ }).locator('tbody tr').count()).toBe(25);
-    expect(await page.getByRole('table', { name: /Picked worker-shifts, page 2/ }).locator('tbody tr').count()).toBe(5);
+    expect(
+      await page
+        .getByRole('table', { name: /Picked worker-shifts, page 1/ })
+        .locator('tbody tr')
+        .count(),
+    ).toBe(25);
+    expect(
+      await page
+        .getByRole('table', { name: /Picked worker-shifts, page 2/ })
+        .locator('tbody tr')
+        .count(),
+    ).toBe(5);
     // Chromium's own print layout: the PDF's page tree counts two pages (not three: nothing spills over).
     const pdf = (await page.pdf({ preferCSSPageSize: true })).toString('latin1');
     expect(/\/Count (\d+)/.exec(pdf)?.[1]).toBe('2');
@@ -217,7 +248,10 @@ describe('an exposure group, from set-up to results', () => {
     await page.goto(`${organizationBase(page)}/exposure-groups`);
     await page.getByRole('link', { name: 'Planer feeder – wood dust' }).click();
     await page.getByRole('heading', { level: 1, name: 'Planer feeder – wood dust' }).waitFor();
-    await table(page, /Shift results/).locator('tbody tr').first().waitFor();
+    await table(page, /Shift results/)
+      .locator('tbody tr')
+      .first()
+      .waitFor();
     const scan = await axeScan(page);
     expect(scan.passedRules).toBeGreaterThan(10);
     expect(severe(scan.violations)).toEqual([]);
@@ -238,18 +272,30 @@ describe('the same pages for a manager', () => {
 
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Exposure groups' }).click();
     await page.waitForURL(/\/exposure-groups$/);
-    await table(page, /^Exposure groups/).locator('tbody tr').first().waitFor();
+    await table(page, /^Exposure groups/)
+      .locator('tbody tr')
+      .first()
+      .waitFor();
     expect(await page.getByRole('link', { name: 'New exposure group' }).count()).toBe(0);
     await page.getByRole('link', { name: 'Head sawyer – noise' }).click();
     await page.getByRole('heading', { level: 1, name: 'Head sawyer – noise' }).waitFor();
-    await table(page, /Shift results/).locator('tbody tr').first().waitFor();
-    await table(page, /Picked worker-shifts/).locator('tbody tr').first().waitFor();
+    await table(page, /Shift results/)
+      .locator('tbody tr')
+      .first()
+      .waitFor();
+    await table(page, /Picked worker-shifts/)
+      .locator('tbody tr')
+      .first()
+      .waitFor();
     for (const name of ['Edit group', 'Add member', 'Plan sampling', 'New plan', 'Change plan', 'Redraw', 'Enter a result']) {
       expect(await page.getByRole('button', { name }).or(page.getByRole('link', { name })).count(), name).toBe(0);
     }
     expect(await page.getByRole('button', { name: /^(Void|Restore|Archive|End|Dates)\b/ }).count()).toBe(0);
     // Reading is allowed: details of a result, the field sheet, the assessment link.
-    await page.getByRole('button', { name: /^Details of the result/ }).first().click();
+    await page
+      .getByRole('button', { name: /^Details of the result/ })
+      .first()
+      .click();
     await dialog(page, 'How this result was reached').waitFor();
     await page.keyboard.press('Escape');
     await page.getByRole('link', { name: 'Field sheet' }).first().waitFor();
@@ -311,7 +357,9 @@ describe('sites, agents and workers', () => {
     await page.getByRole('button', { name: 'Add site' }).click();
     await dialog(page, 'Add a site').getByLabel('Name').fill('Ridgeback sawmill');
     await dialog(page, 'Add a site').getByLabel('Name').press('Enter');
-    await dialog(page, 'Add a site').getByText(/A site named "Ridgeback sawmill" already exists/).waitFor();
+    await dialog(page, 'Add a site')
+      .getByText(/A site named "Ridgeback sawmill" already exists/)
+      .waitFor();
     await page.keyboard.press('Escape');
 
     await page.getByLabel('Search name or description').fill('kiln');
@@ -322,14 +370,20 @@ describe('sites, agents and workers', () => {
     await sites.getByText('Drying kilns, the stacker and the sorter.').waitFor();
 
     await page.getByRole('button', { name: 'Archive site Ridgeback kiln yard' }).click();
-    await dialog(page, /Archive site/).getByLabel('Reason (optional)').fill('Kilns moved to the planing mill');
-    await dialog(page, /Archive site/).getByRole('button', { name: 'Archive' }).click();
+    await dialog(page, /Archive site/)
+      .getByLabel('Reason (optional)')
+      .fill('Kilns moved to the planing mill');
+    await dialog(page, /Archive site/)
+      .getByRole('button', { name: 'Archive' })
+      .click();
     await page.getByText('Site “Ridgeback kiln yard” archived.').waitFor();
     await expect.poll(() => sites.locator('tbody tr').count()).toBe(0);
     await page.getByLabel('Show').selectOption({ label: 'Archived' });
     await sites.getByText('Ridgeback kiln yard').waitFor();
     await page.getByRole('button', { name: 'Bring back site Ridgeback kiln yard' }).click();
-    await dialog(page, /Bring back site/).getByRole('button', { name: 'Bring back' }).click();
+    await dialog(page, /Bring back site/)
+      .getByRole('button', { name: 'Bring back' })
+      .click();
     await page.getByText('Site “Ridgeback kiln yard” brought back.').waitFor();
     await expect.poll(() => sites.locator('tbody tr').count()).toBe(0);
     await screenshot(page, 'sites-hygienist');

@@ -35,8 +35,27 @@ export const organizationNames = { ridgeback: 'Ridgeback Timber Co.', slateHarbo
 export interface TestServer {
   /** "http://127.0.0.1:PORT", no trailing slash. */
   url: string;
-  /** Stops the server and deletes its temporary database. */
+  /** Stops the server and deletes its temporary database (unless `keepData`). */
   stop(): Promise<void>;
+  /** The server process (crash and shutdown tests signal it themselves). */
+  child: ChildProcess;
+  /** The SQLite file the server uses. */
+  databasePath: string;
+  /** Everything the process printed so far. */
+  output(): string;
+  /** Resolves when the process has exited. */
+  exited(): Promise<void>;
+}
+
+export interface StartServerOptions {
+  /** Use this folder for the database instead of a new temporary one (restart on the same file). */
+  dataDir?: string;
+  /** Leave the database folder in place at stop (the test removes it). */
+  keepData?: boolean;
+  /** Extra environment (e.g. SEED_DEMO: 'false'). */
+  env?: Record<string, string>;
+  /** Whether the built client must exist (default true; API-only process tests say false). */
+  requireClient?: boolean;
 }
 
 function freePort(): Promise<number> {
@@ -60,27 +79,32 @@ function exited(child: ChildProcess): Promise<void> {
  * Starts backend/src/server.ts as a child process and waits until GET /api/health answers
  * `{ ok: true }`. The child's output is kept and included in the error if it never gets there.
  */
-export async function startServer(): Promise<TestServer> {
-  if (!existsSync(join(projectRoot, 'dist/client/index.html'))) {
-    throw new Error('dist/client/index.html is missing: run `npm run build` before the e2e tests (`npm run test:e2e` does both).');
+export async function startServer(options: StartServerOptions = {}): Promise<TestServer> {
+  const clientDir = process.env.CLIENT_DIR ?? join(projectRoot, 'dist/client');
+  if ((options.requireClient ?? true) && !existsSync(join(clientDir, 'index.html'))) {
+    throw new Error(`${clientDir}/index.html is missing: run \`npm run build\` before the e2e tests (\`npm run test:e2e\` does both).`);
   }
   const port = await freePort();
   const url = `http://127.0.0.1:${port}`;
-  const dataDir = mkdtempSync(join(tmpdir(), 'bellwether-e2e-'));
+  const dataDir = options.dataDir ?? mkdtempSync(join(tmpdir(), 'bellwether-e2e-'));
+  const databasePath = join(dataDir, 'bellwether.db');
   const env: NodeJS.ProcessEnv = {
     ...process.env,
     NODE_ENV: 'test',
     PORT: String(port),
     APP_URL: url,
-    DATABASE_PATH: join(dataDir, 'bellwether.db'),
+    DATABASE_PATH: databasePath,
     SESSION_SECRET: 'e2e-session-secret-0123456789abcdef0123456789',
     DEMO_PASSWORD: demoPassword,
     SEED_DEMO: 'true',
     LOG_LEVEL: 'warn',
+    ...options.env,
   };
   delete env.SMTP_URL; // no relay: the server starts its local e-mail capture and the Outbox page
 
-  const child = spawn(join(projectRoot, 'node_modules/.bin/tsx'), ['backend/src/server.ts'], {
+  // Node itself with tsx as a loader (not the tsx command, which runs the server in a second
+  // process): the child is the server, so a signal sent to it (SIGKILL in the crash tests) reaches it.
+  const child = spawn(process.execPath, ['--import', 'tsx', 'backend/src/server.ts'], {
     cwd: projectRoot,
     env,
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -96,8 +120,9 @@ export async function startServer(): Promise<TestServer> {
       await exited(child);
       clearTimeout(timer);
     }
-    rmSync(dataDir, { recursive: true, force: true });
+    if (!options.keepData) rmSync(dataDir, { recursive: true, force: true });
   };
+  const started = { url, stop, child, databasePath, output: () => output, exited: () => exited(child) };
 
   const deadline = Date.now() + 90_000;
   while (Date.now() < deadline) {
@@ -107,7 +132,7 @@ export async function startServer(): Promise<TestServer> {
     }
     try {
       const response = await fetch(`${url}/api/health`);
-      if (response.ok && ((await response.json()) as { ok?: boolean }).ok === true) return { url, stop };
+      if (response.ok && ((await response.json()) as { ok?: boolean }).ok === true) return started;
     } catch {
       // not listening yet
     }
@@ -211,9 +236,17 @@ export async function signIn(page: Page, email: string, password = demoPassword)
  * sidebar of an admin) and returns the first link in it whose address contains `pathPart`.
  */
 export async function linkFromOutbox(page: Page, recipient: string, pathPart: string): Promise<string> {
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /Outbox/ }).click();
+  await page
+    .getByRole('navigation', { name: 'Main' })
+    .getByRole('link', { name: /Outbox/ })
+    .click();
   await page.getByRole('heading', { level: 1, name: 'Outbox' }).waitFor();
-  await page.getByRole('list', { name: 'Captured e-mails' }).getByRole('link').filter({ hasText: `To ${recipient}` }).first().click();
+  await page
+    .getByRole('list', { name: 'Captured e-mails' })
+    .getByRole('link')
+    .filter({ hasText: `To ${recipient}` })
+    .first()
+    .click();
   const links = page.getByRole('region', { name: 'Links in this message' }).getByRole('link');
   await links.first().waitFor();
   const hrefs = await links.evaluateAll((anchors) => anchors.map((a) => (a as HTMLAnchorElement).href));

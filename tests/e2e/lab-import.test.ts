@@ -70,7 +70,9 @@ describe('importing lab results', () => {
     const { context, page, assertClean } = await open();
     await signIn(page, demoUsers.hygienist);
     await openImportPage(page);
-    await page.getByLabel('Lab results file (CSV)').setInputFiles({ name: 'ridgeback-wood-dust-jan.csv', mimeType: 'text/csv', buffer: Buffer.from(validFile) });
+    await page
+      .getByLabel('Lab results file (CSV)')
+      .setInputFiles({ name: 'ridgeback-wood-dust-jan.csv', mimeType: 'text/csv', buffer: Buffer.from(validFile) });
 
     // Preview with the columns found, and the mapping suggested from their names.
     await page.getByRole('heading', { level: 1, name: 'ridgeback-wood-dust-jan.csv' }).waitFor();
@@ -83,7 +85,10 @@ describe('importing lab results', () => {
 
     // Without a choice for the unsampled time, the check says which shifts need one.
     await page.getByRole('button', { name: 'Check the file' }).click();
-    await page.getByText(/choose what the unsampled time is taken as/).first().waitFor();
+    await page
+      .getByText(/choose what the unsampled time is taken as/)
+      .first()
+      .waitFor();
     await page.getByRole('radio', { name: /No exposure when no sample ran/ }).check();
     await screenshot(page, 'lab-import-mapping');
     await page.getByRole('button', { name: 'Check the file' }).click();
@@ -124,7 +129,9 @@ describe('importing lab results', () => {
     await page.evaluate((content) => {
       const transfer = new DataTransfer();
       transfer.items.add(new File([content], 'ridgeback-bad-rows.csv', { type: 'text/csv' }));
-      document.querySelector('[data-testid="lab-file-drop"]')?.dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, bubbles: true, cancelable: true }));
+      document
+        .querySelector('[data-testid="lab-file-drop"]')
+        ?.dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, bubbles: true, cancelable: true }));
     }, invalidFile);
     await page.getByRole('heading', { level: 1, name: 'ridgeback-bad-rows.csv' }).waitFor();
     const batchId = new URL(page.url()).pathname.split('/').pop();
@@ -158,7 +165,9 @@ describe('importing lab results', () => {
     const { context, page, assertClean } = await open();
     await signIn(page, demoUsers.hygienist);
     await openImportPage(page);
-    await page.getByLabel('Lab results file (CSV)').setInputFiles({ name: 'header-only.csv', mimeType: 'text/csv', buffer: Buffer.from('Worker,Date,Result\n') });
+    await page
+      .getByLabel('Lab results file (CSV)')
+      .setInputFiles({ name: 'header-only.csv', mimeType: 'text/csv', buffer: Buffer.from('Worker,Date,Result\n') });
     await page.getByText('“header-only.csv” could not be read: 1 problem. Nothing was stored.').waitFor();
     expect(await problemsShown(page)).toEqual(['— | — | the file has a header but no data rows']);
     expect(new URL(page.url()).pathname).toMatch(/\/lab-imports$/);

@@ -21,7 +21,9 @@ describe('noise log review', () => {
   it('a hygienist uploads a log, masks a knock, sees the reviewed dose change and accepts it into the group', async () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.hygienist);
-    const organizationId = await page.evaluate(async () => ((await (await fetch('/api/me')).json()) as { memberships: Array<{ organizationId: number }> }).memberships[0].organizationId);
+    const organizationId = await page.evaluate(
+      async () => ((await (await fetch('/api/me')).json()) as { memberships: Array<{ organizationId: number }> }).memberships[0].organizationId,
+    );
 
     // A 2 h log at 1 s with two knocks (stats/noise-demo.ts, fixed seed).
     const demo = generateNoiseDemoLog({ seed: 4242, hours: 2, knockCount: 2, worker: 'RT-008', start: '2025-02-10T06:30:00-08:00' });
@@ -29,7 +31,9 @@ describe('noise log review', () => {
     await page.getByRole('heading', { level: 1, name: 'Noise logs' }).waitFor();
     await page.getByRole('button', { name: 'Upload a noise log' }).click();
     const dialog = page.getByRole('dialog', { name: 'Upload a noise log' });
-    await dialog.getByLabel('Noise log file (.csv, at most 50 MB)').setInputFiles({ name: 'rt-008-bench.csv', mimeType: 'text/csv', buffer: Buffer.from(demo.text) });
+    await dialog
+      .getByLabel('Noise log file (.csv, at most 50 MB)')
+      .setInputFiles({ name: 'rt-008-bench.csv', mimeType: 'text/csv', buffer: Buffer.from(demo.text) });
     await dialog.getByLabel('Exposure group').selectOption({ label: 'Maintenance fitter – noise' });
     await dialog.getByLabel('Worker').selectOption({ label: 'RT-008 · Robin Achterberg' });
     await dialog.getByLabel('Shift date').fill('2025-02-10');
@@ -82,11 +86,17 @@ describe('noise log review', () => {
     // The seeded bench log: the still-stretch notice, and the bench span masked as a hatched band.
     await page.goto(`/orgs/${organizationId}/noise-logs`);
     await page.getByRole('link', { name: '2025-02-04' }).filter({ hasText: '2025-02-04' }).first().waitFor();
-    const list = await page.evaluate(async (path) => (await (await fetch(path)).json()) as { items: Array<{ id: number; workerCode: string; shiftDate: string }> }, `/api/orgs/${organizationId}/noise-logs`);
+    const list = await page.evaluate(
+      async (path) => (await (await fetch(path)).json()) as { items: Array<{ id: number; workerCode: string; shiftDate: string }> },
+      `/api/orgs/${organizationId}/noise-logs`,
+    );
     const benchLog = list.items.find((item) => item.workerCode === 'RT-008' && item.shiftDate === '2025-02-04')!;
     await page.goto(`/orgs/${organizationId}/noise-logs/${benchLog.id}`);
     await page.getByText('The meter was still for a long time').waitFor();
-    const bench = await page.evaluate(async (path) => (await (await fetch(path)).json()) as { stillStretches: Array<{ startS: number; endS: number }> }, `/api/orgs/${organizationId}/noise-logs/${benchLog.id}`);
+    const bench = await page.evaluate(
+      async (path) => (await (await fetch(path)).json()) as { stillStretches: Array<{ startS: number; endS: number }> },
+      `/api/orgs/${organizationId}/noise-logs/${benchLog.id}`,
+    );
     expect(bench.stillStretches.length).toBeGreaterThan(0);
     // Select a span on the chart with the mouse: the mask dialog opens with the selected times.
     await page.locator('.js-plotly-plot .main-svg').first().waitFor({ timeout: 60_000 });

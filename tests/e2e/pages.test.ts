@@ -7,7 +7,7 @@ import { axeScan, demoUsers, linkFromOutbox, organizationNames, screenshot, seve
 const app = useE2eApp();
 
 describe('signing in', () => {
-  it('a wrong password shows the server\'s message and stays on the sign-in page', async () => {
+  it("a wrong password shows the server's message and stays on the sign-in page", async () => {
     const { context, page, assertClean } = await app.open();
     await page.goto('/sign-in');
     await page.getByLabel('E-mail').fill(demoUsers.manager);
@@ -36,7 +36,7 @@ describe('signing in', () => {
 });
 
 describe('resetting a forgotten password', () => {
-  it('the reset e-mail\'s link sets a new password that then signs in', async () => {
+  it("the reset e-mail's link sets a new password that then signs in", async () => {
     const visitor = await app.open();
     await visitor.page.goto('/sign-in');
     await visitor.page.getByRole('link', { name: 'Forgot your password?' }).click();

@@ -34,7 +34,7 @@ async function invite(page: Page, email: string, role: string): Promise<void> {
 const invitationLinkFromOutbox = (page: Page, email: string) => linkFromOutbox(page, email, '/accept-invitation/');
 
 describe('the members table', () => {
-  it('lists the organization\'s members and searches, filters and sorts them', async () => {
+  it("lists the organization's members and searches, filters and sorts them", async () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.admin);
     await openPeoplePage(page);
@@ -65,7 +65,7 @@ describe('the members table', () => {
     await context.close();
   });
 
-  it('refuses to demote the last active admin and shows the server\'s reason', async () => {
+  it("refuses to demote the last active admin and shows the server's reason", async () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.admin);
     await openPeoplePage(page);
@@ -80,7 +80,7 @@ describe('the members table', () => {
     await context.close();
   });
 
-  it('links a wrong e-mail\'s message to its field before anything is sent', async () => {
+  it("links a wrong e-mail's message to its field before anything is sent", async () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.admin);
     await openPeoplePage(page);
@@ -106,7 +106,9 @@ describe('inviting someone', () => {
     await openPeoplePage(admin.page);
     const newcomer = 'edger.lead@ridgeback.example';
     await invite(admin.page, newcomer, 'Hygienist');
-    await invitationsTable(admin.page).getByRole('row', { name: new RegExp(newcomer) }).waitFor();
+    await invitationsTable(admin.page)
+      .getByRole('row', { name: new RegExp(newcomer) })
+      .waitFor();
 
     const link = await invitationLinkFromOutbox(admin.page, newcomer);
     expect(new URL(link).origin).toBe(app.server.url);
@@ -133,12 +135,25 @@ describe('inviting someone', () => {
     await invitee.page.getByText('You work here as Hygienist.').waitFor();
     await invitee.page.getByText('Rowan Tallis').waitFor();
     // A hygienist's sidebar: the pages to read and the import, no People (roles.test.ts lists every role's).
-    expect(await navigationItems(invitee.page)).toEqual(['Overview', 'Exposure groups', 'Workers', 'Sites', 'Agents & OELs', 'Import results', 'Noise logs']);
+    expect(await navigationItems(invitee.page)).toEqual([
+      'Overview',
+      'Exposure groups',
+      'Workers',
+      'Sites',
+      'Agents & OELs',
+      'Hearing protectors',
+      'Import results',
+      'Noise logs',
+    ]);
 
     // The admin sees the newcomer as a member and the invitation no longer open.
     await openPeoplePage(admin.page);
     await membersTable(admin.page).locator('tbody tr', { hasText: newcomer }).waitFor();
-    expect(await invitationsTable(admin.page).getByRole('row', { name: new RegExp(newcomer) }).count()).toBe(0);
+    expect(
+      await invitationsTable(admin.page)
+        .getByRole('row', { name: new RegExp(newcomer) })
+        .count(),
+    ).toBe(0);
 
     // The link works once.
     const again = await app.open();
@@ -196,7 +211,13 @@ describe('inviting someone', () => {
     await openPeoplePage(admin.page);
     await admin.page.getByRole('button', { name: `Revoke the invitation for ${email}` }).click();
     await admin.page.getByText(`The invitation for ${email} is revoked`).waitFor();
-    await expect.poll(() => invitationsTable(admin.page).getByRole('row', { name: new RegExp(email) }).count()).toBe(0);
+    await expect
+      .poll(() =>
+        invitationsTable(admin.page)
+          .getByRole('row', { name: new RegExp(email) })
+          .count(),
+      )
+      .toBe(0);
 
     const invitee = await app.open();
     await invitee.page.goto(link);

@@ -8,9 +8,9 @@ const app = useE2eApp();
 
 // The sidebar of each role (schema/permissions.ts, app/navigation.ts): pages every member reads,
 // the import for roles that change data, settings and people for admins.
-const readingPages = ['Overview', 'Exposure groups', 'Workers', 'Sites', 'Agents & OELs'];
+const readingPages = ['Overview', 'Exposure groups', 'Workers', 'Sites', 'Agents & OELs', 'Hearing protectors'];
 const navigationOf = {
-  admin: [...readingPages, 'Import results', 'Noise logs', 'Noise settings', 'People', 'Outbox'],
+  admin: [...readingPages, 'Import results', 'Noise logs', 'Noise settings', 'People', 'Audit trail', 'Outbox'],
   hygienist: [...readingPages, 'Import results', 'Noise logs'],
   reader: [...readingPages, 'Noise logs'],
 };
@@ -23,7 +23,10 @@ describe('signing in as each demo role', () => {
     await page.waitForURL(/\/orgs\/\d+$/);
     await page.getByRole('heading', { level: 1, name: organizationNames.ridgeback }).waitFor();
     // The Outbox item appears once GET /api/outbox has answered that the capture runs.
-    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /Outbox/ }).waitFor();
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: /Outbox/ })
+      .waitFor();
     expect(await navigationItems(page)).toEqual(navigationOf.admin);
 
     // The figures come from GET /api/orgs/:orgId/summary; the demo has sites, groups, workers and agents.
@@ -85,7 +88,8 @@ describe('signing in as each demo role', () => {
     const { context, page, assertClean } = await app.open();
     await signIn(page, demoUsers.consultant);
     await page.getByRole('heading', { level: 1, name: organizationNames.ridgeback }).waitFor();
-    expect(await navigationItems(page)).toEqual(navigationOf.reader);
+    // Consultants also read the audit trail (audit:read).
+    expect(await navigationItems(page)).toEqual([...navigationOf.reader, 'Audit trail']);
 
     const switcher = page.getByLabel('Organization', { exact: true });
     const options = await switcher.locator('option').allInnerTexts();

@@ -34,13 +34,21 @@ export function workerId(db: Db, organizationId: number, code: string): number {
 }
 
 export function siteId(db: Db, organizationId: number, name: string): number {
-  const row = db.select({ id: sites.id }).from(sites).where(and(eq(sites.organizationId, organizationId), eq(sites.name, name))).get();
+  const row = db
+    .select({ id: sites.id })
+    .from(sites)
+    .where(and(eq(sites.organizationId, organizationId), eq(sites.name, name)))
+    .get();
   if (!row) throw new Error(`No demo site "${name}"`);
   return row.id;
 }
 
 export function agentId(db: Db, organizationId: number, name: string): number {
-  const row = db.select({ id: agents.id }).from(agents).where(and(eq(agents.organizationId, organizationId), eq(agents.name, name))).get();
+  const row = db
+    .select({ id: agents.id })
+    .from(agents)
+    .where(and(eq(agents.organizationId, organizationId), eq(agents.name, name)))
+    .get();
   if (!row) throw new Error(`No demo agent "${name}"`);
   return row.id;
 }

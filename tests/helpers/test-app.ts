@@ -89,13 +89,22 @@ export class Client {
     return this.agent.get(path);
   }
   post(path: string, body?: object) {
-    return this.agent.post(path).set('X-CSRF-Token', this.csrfToken).send(body ?? {});
+    return this.agent
+      .post(path)
+      .set('X-CSRF-Token', this.csrfToken)
+      .send(body ?? {});
   }
   patch(path: string, body?: object) {
-    return this.agent.patch(path).set('X-CSRF-Token', this.csrfToken).send(body ?? {});
+    return this.agent
+      .patch(path)
+      .set('X-CSRF-Token', this.csrfToken)
+      .send(body ?? {});
   }
   put(path: string, body?: object) {
-    return this.agent.put(path).set('X-CSRF-Token', this.csrfToken).send(body ?? {});
+    return this.agent
+      .put(path)
+      .set('X-CSRF-Token', this.csrfToken)
+      .send(body ?? {});
   }
   delete(path: string) {
     return this.agent.delete(path).set('X-CSRF-Token', this.csrfToken);

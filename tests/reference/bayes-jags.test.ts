@@ -50,9 +50,7 @@ interface JagsFixture {
   cases: JagsCase[];
 }
 
-const fixture = JSON.parse(
-  readFileSync(path.resolve(__dirname, '../fixtures/stats/bayes-jags.json'), 'utf8'),
-) as JagsFixture;
+const fixture = JSON.parse(readFileSync(path.resolve(__dirname, '../fixtures/stats/bayes-jags.json'), 'utf8')) as JagsFixture;
 
 function shiftValues(c: JagsCase): ShiftValue[] {
   return c.values.map((value, i) => (c.lower[i] > 0 ? { value, nonDetect: true, lower: c.lower[i] } : { value, nonDetect: c.nonDetect[i] }));

@@ -63,7 +63,17 @@ describe('between-worker analysis against R (aov, lm, nlme)', () => {
     );
     expect(result.degreesOfFreedomBetween).toBe(c.degreesOfFreedomBetween);
     expect(result.degreesOfFreedomWithin).toBe(c.degreesOfFreedomWithin);
-    for (const field of ['sumOfSquaresBetween', 'sumOfSquaresWithin', 'meanSquareBetween', 'meanSquareWithin', 'fStatistic', 'n0', 'withinVariance', 'meanLog', 'ratio95'] as const) {
+    for (const field of [
+      'sumOfSquaresBetween',
+      'sumOfSquaresWithin',
+      'meanSquareBetween',
+      'meanSquareWithin',
+      'fStatistic',
+      'n0',
+      'withinVariance',
+      'meanLog',
+      'ratio95',
+    ] as const) {
       close(result[field], c[field], 1e-10);
     }
     if (c.betweenVariance === 0) expect(result.betweenVariance).toBe(0);

@@ -31,16 +31,16 @@ describe('censored maximum likelihood matches survival::survreg', () => {
       const values = c.values.map((value, i) => ({ value, nonDetect: c.nonDetect[i] }));
       const fit = censoredLognormalMle(values);
 
-      it('gives survreg\'s intercept (mu) and scale (sigma) of the log values', () => {
+      it("gives survreg's intercept (mu) and scale (sigma) of the log values", () => {
         closeTo(fit.mu, c.mu); // survreg coef(fit)[1]
         closeTo(fit.sigma, c.sigma); // survreg fit$scale
       });
 
-      it('gives survreg\'s log-likelihood at the maximum', () => {
+      it("gives survreg's log-likelihood at the maximum", () => {
         closeTo(fit.logLikelihood, c.logLikelihood); // survreg fit$loglik[2]
       });
 
-      it('gives survreg\'s variances of mu and log(sigma) from the observed information', () => {
+      it("gives survreg's variances of mu and log(sigma) from the observed information", () => {
         closeTo(fit.standardErrorMu ** 2, c.varianceMu); // vcov(fit)[1, 1]
         closeTo(fit.standardErrorLogSigma ** 2, c.varianceLogSigma); // vcov(fit)[2, 2]
         closeTo(fit.covarianceMuLogSigma, c.covarianceMuLogSigma); // vcov(fit)[1, 2]

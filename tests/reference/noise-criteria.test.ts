@@ -160,11 +160,15 @@ describe('ISO 9612:2009 daily noise exposure level LEX,8h', () => {
     // LEX,8h = 10·lg(Σ (Tm / 8 h)·10^(0.1·Lm)), worked by hand:
     // 0.25·10^9.5 = 790,569,415.0; 0.5·10^8.5 = 158,113,883.0; 0.25·10^7 = 2,500,000
     // sum = 951,183,298.1; 10·lg(sum) = 89.78 dB (hand result to 0.01 dB).
-    expect(Math.abs(lex8hFromTasks([
-      { levelDb: 95, hours: 2 },
-      { levelDb: 85, hours: 4 },
-      { levelDb: 70, hours: 2 },
-    ]) - 89.78)).toBeLessThanOrEqual(0.005);
+    expect(
+      Math.abs(
+        lex8hFromTasks([
+          { levelDb: 95, hours: 2 },
+          { levelDb: 85, hours: 4 },
+          { levelDb: 70, hours: 2 },
+        ]) - 89.78,
+      ),
+    ).toBeLessThanOrEqual(0.005);
   });
 
   test('from LAeq over Te: 88 dB over a 10 h day gives 88.97 dB and 8 h leaves it unchanged', () => {

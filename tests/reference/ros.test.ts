@@ -43,8 +43,7 @@ describe('robust ROS matches an independent R implementation of the published de
   // about 1e-15 when this was written. 1e-10 relative catches any difference in the counting
   // rules, which moves positions by 1 % or more.
   const RELATIVE = 1e-10;
-  const close = (actual: number, expected: number) =>
-    expect(Math.abs(actual - expected)).toBeLessThanOrEqual(RELATIVE * Math.abs(expected));
+  const close = (actual: number, expected: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(RELATIVE * Math.abs(expected));
 
   for (const c of fixture.cases) {
     it(`${c.name}: same plotting positions, fitted line, imputed values and log mean/SD`, () => {

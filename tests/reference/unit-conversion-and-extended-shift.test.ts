@@ -24,7 +24,9 @@ describe('ppm ↔ mg/m³ at 25 °C and 760 torr (mg/m³ = ppm × MW / 24.45)', (
   });
 
   it('refuses a conversion without a molecular weight, and bad numbers, naming the function', () => {
-    expect(() => convertAirConcentration(1, 'ppm', 'mg/m3', null)).toThrow(new RangeError('convertAirConcentration: converting ppm to mg/m3 needs the molecular weight'));
+    expect(() => convertAirConcentration(1, 'ppm', 'mg/m3', null)).toThrow(
+      new RangeError('convertAirConcentration: converting ppm to mg/m3 needs the molecular weight'),
+    );
     expect(() => ppmToMilligramsPerCubicMetre(1, 0)).toThrow(/ppmToMilligramsPerCubicMetre: the molecular weight must be a finite number > 0/);
     expect(() => ppmToMilligramsPerCubicMetre(-1, toluene)).toThrow(/the concentration must be a finite number ≥ 0/);
     expect(() => milligramsPerCubicMetreToPpm(Number.NaN, toluene)).toThrow(RangeError);

@@ -93,4 +93,3 @@ export function startBayesBatch(jobs: readonly BayesJob[], useWorkers: boolean):
     },
   };
 }
-

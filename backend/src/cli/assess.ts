@@ -144,7 +144,10 @@ export function assessParsedGroups(groups: readonly ParsedGroup[], options: Asse
   // --bayes (assess-bayes.ts): started before the classical figures so worker threads run alongside them.
   const bayesIndex = new Map(inputs.map((input, index) => [input.group, index]));
   const bayesBatch = options.bayes
-    ? startBayesBatch(inputs.map((input) => ({ values: input.values, oel: input.oel, seed: options.seed })), options.bayesWorkers === true)
+    ? startBayesBatch(
+        inputs.map((input) => ({ values: input.values, oel: input.oel, seed: options.seed })),
+        options.bayesWorkers === true,
+      )
     : null;
   for (const result of assessMany(inputs)) {
     if (result.error !== null) {

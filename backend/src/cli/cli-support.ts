@@ -25,12 +25,7 @@ export class InputError extends Error {}
 const numberPattern = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 /** Parse an optional numeric option; `rule` says what was expected, e.g. "a number greater than 0". */
-export function numberOption(
-  name: string,
-  text: string | undefined,
-  check: (value: number) => boolean,
-  rule: string,
-): number | undefined {
+export function numberOption(name: string, text: string | undefined, check: (value: number) => boolean, rule: string): number | undefined {
   if (text === undefined) return undefined;
   const value = Number(text);
   if (!numberPattern.test(text.trim()) || !check(value)) throw new UsageError(`--${name} must be ${rule}, got "${text}"`);

@@ -16,8 +16,7 @@ import { checkNoiseLogSize, decodeNoiseLogBytes, NoiseLogError, parseNoiseLog } 
 import type { NoiseSettings } from '@stats/noise-settings';
 import { InputError, isInvokedDirectly, numberOption, parseJsonFile, processOutput, readTextFile, runCommand, UsageError, type CliOutput } from './cli-support';
 
-export const usage =
-  'usage: npm run -s noise -- --input LOG.csv [--masks masks.json] [--shift-hours H] [--still-minutes M] [--knock-mg G]';
+export const usage = 'usage: npm run -s noise -- --input LOG.csv [--masks masks.json] [--shift-hours H] [--still-minutes M] [--knock-mg G]';
 
 function readMasks(file: string): NoiseMaskSpan[] {
   const data = parseJsonFile(readTextFile(file, 'masks file'), file);
@@ -28,7 +27,10 @@ function readMasks(file: string): NoiseMaskSpan[] {
       throw new InputError(`${where}: expected an object {"startS","endS"}`);
     }
     const { startS, endS, reason } = entry as Record<string, unknown>;
-    for (const [key, value] of [['startS', startS], ['endS', endS]] as const) {
+    for (const [key, value] of [
+      ['startS', startS],
+      ['endS', endS],
+    ] as const) {
       if (typeof value !== 'number' || !Number.isFinite(value)) {
         throw new InputError(`${where}, field "${key}": expected a number of seconds from the log start, got ${JSON.stringify(value)}`);
       }
@@ -88,7 +90,12 @@ export function main(argv: readonly string[], output: CliOutput = processOutput)
     const input = values.input as string | undefined;
     if (!input) throw new UsageError('--input LOG.csv is required');
     const shiftHours = numberOption('shift-hours', values['shift-hours'] as string | undefined, (v) => v > 0 && v <= 24, 'a number of hours > 0 and ≤ 24');
-    const stillMinutes = numberOption('still-minutes', values['still-minutes'] as string | undefined, (v) => v > 0 && v <= 1440, 'a number of minutes > 0 and ≤ 1440');
+    const stillMinutes = numberOption(
+      'still-minutes',
+      values['still-minutes'] as string | undefined,
+      (v) => v > 0 && v <= 1440,
+      'a number of minutes > 0 and ≤ 1440',
+    );
     const knockMg = numberOption('knock-mg', values['knock-mg'] as string | undefined, (v) => v > 0 && v <= 1_000_000, 'a number of mg > 0');
     const masksFile = values.masks as string | undefined;
 

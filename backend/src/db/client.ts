@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url';
 import BetterSqlite3 from 'better-sqlite3';
 import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
 import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import { readMigrationFiles } from 'drizzle-orm/migrator';
 import * as schema from '@schema/index';
 
 /** The app's database handle: drizzle with every table; the raw driver is `db.$client`. */
@@ -40,11 +41,32 @@ export function openMigratedDatabase(path: string): Db {
   return db;
 }
 
-/** Runs `select 1`; false when the database cannot answer. */
-export function databaseIsHealthy(db: Db): boolean {
+/** Migrations in this build's folder (read once: they change only with a new build). */
+let shippedMigrations: number | undefined;
+
+/** What GET /api/health reports about the database. */
+export type DatabaseHealth = { ok: true; migrations: number } | { ok: false; reason: string };
+
+/**
+ * A real query, not a ping: `select 1`, then the count of applied migrations, which must be at
+ * least the number of migrations this build ships (a database from a newer build is fine; an
+ * older, unmigrated one is not). Any failure (closed handle, missing table, corrupt file) is
+ * reported with its reason.
+ */
+export function databaseHealth(db: Db): DatabaseHealth {
   try {
-    return db.$client.prepare('select 1 as ok').get() !== undefined;
-  } catch {
-    return false;
+    if (db.$client.prepare('select 1 as ok').get() === undefined) return { ok: false, reason: 'select 1 returned no row' };
+    const applied = (db.$client.prepare('select count(*) as n from __drizzle_migrations').get() as { n: number }).n;
+    shippedMigrations ??= readMigrationFiles({ migrationsFolder }).length;
+    const shipped = shippedMigrations;
+    if (applied < shipped) return { ok: false, reason: `${applied} of ${shipped} migrations applied: run npm run db:migrate` };
+    return { ok: true, migrations: applied };
+  } catch (error) {
+    return { ok: false, reason: `the database cannot answer: ${error instanceof Error ? error.message : String(error)}` };
   }
+}
+
+/** Whether `databaseHealth` is ok. */
+export function databaseIsHealthy(db: Db): boolean {
+  return databaseHealth(db).ok;
 }

@@ -4,12 +4,7 @@ import { organizations } from '@schema/organizations';
 import { users } from '@schema/users';
 import type { Clock } from '../clock';
 import { createAssessmentEngine } from '../services/assessment';
-import {
-  acknowledgeDecision,
-  approveDecisionDraft,
-  createDecisionDraft,
-  returnDecisionDraft,
-} from '../services/decision-records';
+import { acknowledgeDecision, approveDecisionDraft, createDecisionDraft, returnDecisionDraft } from '../services/decision-records';
 import type { Db } from './client';
 
 /*
@@ -46,7 +41,8 @@ const demoDecisions: DemoDecision[] = [
     domain: 'ridgeback.example',
     step: 'approved',
     rationale: 'Seven full-shift doses, most above 100 %; the open workstation beside the edger saws is the source.',
-    actions: 'Hearing protection compulsory at the edger now; engineering study of an enclosed booth by the next quarter; audiometric tests for both operators.',
+    actions:
+      'Hearing protection compulsory at the edger now; engineering study of an enclosed booth by the next quarter; audiometric tests for both operators.',
   },
   {
     slug: 'ridgeback-timber',

@@ -41,10 +41,46 @@ interface DemoCampaign {
 /** Campaigns by organization slug. Noise in % dose against 100 %; dusts in mg/m³. */
 export const demoCampaigns: Record<string, DemoCampaign[]> = {
   'ridgeback-timber': [
-    { group: 'Saw filer – noise', seed: 240_901, targetCount: 8, measured: 8, geometricMean: 12, geometricStandardDeviation: 1.7, decimals: 1, expected: 'acceptable' },
-    { group: 'Head sawyer – noise', seed: 241_002, targetCount: 10, measured: 8, geometricMean: 30, geometricStandardDeviation: 1.9, decimals: 1, expected: 'uncertain' },
-    { group: 'Edger operator – noise', seed: 240_903, targetCount: 8, measured: 7, geometricMean: 140, geometricStandardDeviation: 1.6, decimals: 1, expected: 'unacceptable' },
-    { group: 'Forklift driver – noise', seed: 240_904, targetCount: 6, measured: 2, geometricMean: 45, geometricStandardDeviation: 1.8, decimals: 1, expected: 'too few results' },
+    {
+      group: 'Saw filer – noise',
+      seed: 240_901,
+      targetCount: 8,
+      measured: 8,
+      geometricMean: 12,
+      geometricStandardDeviation: 1.7,
+      decimals: 1,
+      expected: 'acceptable',
+    },
+    {
+      group: 'Head sawyer – noise',
+      seed: 241_002,
+      targetCount: 10,
+      measured: 8,
+      geometricMean: 30,
+      geometricStandardDeviation: 1.9,
+      decimals: 1,
+      expected: 'uncertain',
+    },
+    {
+      group: 'Edger operator – noise',
+      seed: 240_903,
+      targetCount: 8,
+      measured: 7,
+      geometricMean: 140,
+      geometricStandardDeviation: 1.6,
+      decimals: 1,
+      expected: 'unacceptable',
+    },
+    {
+      group: 'Forklift driver – noise',
+      seed: 240_904,
+      targetCount: 6,
+      measured: 2,
+      geometricMean: 45,
+      geometricStandardDeviation: 1.8,
+      decimals: 1,
+      expected: 'too few results',
+    },
     {
       group: 'Head sawyer – wood dust',
       seed: 240_905,
@@ -98,7 +134,16 @@ export const demoCampaigns: Record<string, DemoCampaign[]> = {
       detectionLimit: 0.005,
       expected: 'unacceptable',
     },
-    { group: 'Cutter – noise', seed: 240_914, targetCount: 6, measured: 4, geometricMean: 70, geometricStandardDeviation: 1.5, decimals: 1, expected: 'too few results' },
+    {
+      group: 'Cutter – noise',
+      seed: 240_914,
+      targetCount: 6,
+      measured: 4,
+      geometricMean: 70,
+      geometricStandardDeviation: 1.5,
+      decimals: 1,
+      expected: 'too few results',
+    },
   ],
 };
 

@@ -11,7 +11,9 @@ import { recordAudit } from '../services/audit';
 import { hashPassword } from '../services/passwords';
 import type { Db } from './client';
 import { seedDemoDecisions } from './seed-demo-decisions';
+import { demoWorkerEmail, seedDemoWorkerLetters } from './seed-demo-letters';
 import { seedDemoNoiseLogs } from './seed-demo-noise';
+import { seedDemoProtectors } from './seed-demo-protectors';
 import { seedDemoPlansAndResults } from './seed-demo-results';
 
 /*
@@ -96,7 +98,12 @@ const noise = (note: string): DemoAgent => ({
   notes: note,
   // Groups take the first entry: a daily dose in % (linear, so judged with the lognormal statistics).
   limits: [
-    { source: 'Example daily noise dose, 85 dBA criterion, 3 dB exchange rate (demo data; use the regulation that applies to you)', value: 100, unit: 'dose-percent', averagingTime: '8h-twa' },
+    {
+      source: 'Example daily noise dose, 85 dBA criterion, 3 dB exchange rate (demo data; use the regulation that applies to you)',
+      value: 100,
+      unit: 'dose-percent',
+      averagingTime: '8h-twa',
+    },
     { source: 'Example criterion level (demo data; use the regulation that applies to you)', value: 85, unit: 'dBA', averagingTime: '8h-twa' },
   ],
 });
@@ -229,8 +236,24 @@ const ridgeback: DemoOrganization = {
     },
   ],
   workers: [
-    { code: 'RT-001', name: 'Alex Corran', jobTitle: 'Head sawyer', groups: [['Head sawyer – noise', since, null], ['Head sawyer – wood dust', since, null]] },
-    { code: 'RT-002', name: null, jobTitle: 'Head sawyer', groups: [['Head sawyer – noise', since, null], ['Head sawyer – wood dust', since, null]] },
+    {
+      code: 'RT-001',
+      name: 'Alex Corran',
+      jobTitle: 'Head sawyer',
+      groups: [
+        ['Head sawyer – noise', since, null],
+        ['Head sawyer – wood dust', since, null],
+      ],
+    },
+    {
+      code: 'RT-002',
+      name: null,
+      jobTitle: 'Head sawyer',
+      groups: [
+        ['Head sawyer – noise', since, null],
+        ['Head sawyer – wood dust', since, null],
+      ],
+    },
     { code: 'RT-003', name: 'Billie Tarrant', jobTitle: 'Edger operator', groups: [['Edger operator – noise', since, null]] },
     { code: 'RT-004', name: null, jobTitle: 'Edger operator', groups: [['Edger operator – noise', since, null]] },
     {
@@ -248,9 +271,33 @@ const ridgeback: DemoOrganization = {
     { code: 'RT-008', name: 'Robin Achterberg', jobTitle: 'Maintenance fitter', groups: [['Maintenance fitter – noise', since, null]] },
     { code: 'RT-009', name: null, jobTitle: 'Maintenance fitter', groups: [['Maintenance fitter – noise', since, null]] },
     { code: 'RT-010', name: 'Jesse Maranta', jobTitle: 'Maintenance fitter', groups: [['Maintenance fitter – noise', '2023-06-05', null]] },
-    { code: 'RT-011', name: null, jobTitle: 'Planer feeder', groups: [['Planer feeder – noise', since, null], ['Planer feeder – wood dust', since, null]] },
-    { code: 'RT-012', name: 'Noor Haddley', jobTitle: 'Planer feeder', groups: [['Planer feeder – noise', since, null], ['Planer feeder – wood dust', since, null]] },
-    { code: 'RT-013', name: null, jobTitle: 'Planer feeder', groups: [['Planer feeder – noise', since, null], ['Planer feeder – wood dust', since, null]] },
+    {
+      code: 'RT-011',
+      name: null,
+      jobTitle: 'Planer feeder',
+      groups: [
+        ['Planer feeder – noise', since, null],
+        ['Planer feeder – wood dust', since, null],
+      ],
+    },
+    {
+      code: 'RT-012',
+      name: 'Noor Haddley',
+      jobTitle: 'Planer feeder',
+      groups: [
+        ['Planer feeder – noise', since, null],
+        ['Planer feeder – wood dust', since, null],
+      ],
+    },
+    {
+      code: 'RT-013',
+      name: null,
+      jobTitle: 'Planer feeder',
+      groups: [
+        ['Planer feeder – noise', since, null],
+        ['Planer feeder – wood dust', since, null],
+      ],
+    },
     { code: 'RT-014', name: 'Frankie Dunmore', jobTitle: 'Forklift driver', groups: [['Forklift driver – noise', since, null]] },
     { code: 'RT-015', name: null, jobTitle: 'Forklift driver', groups: [['Forklift driver – noise', since, null]] },
     { code: 'RT-016', name: 'Lee Varga', jobTitle: 'Forklift driver', groups: [['Forklift driver – noise', since, '2024-09-30']] },
@@ -328,9 +375,33 @@ const slateHarbor: DemoOrganization = {
     },
   ],
   workers: [
-    { code: 'SH-001', name: 'Marin Estevan', jobTitle: 'Cutter', groups: [['Cutter – respirable crystalline silica', since, null], ['Cutter – noise', since, null]] },
-    { code: 'SH-002', name: null, jobTitle: 'Cutter', groups: [['Cutter – respirable crystalline silica', since, null], ['Cutter – noise', since, null]] },
-    { code: 'SH-003', name: 'Ari Kowalczyk-Dunn', jobTitle: 'Cutter', groups: [['Cutter – respirable crystalline silica', since, null], ['Cutter – noise', since, null]] },
+    {
+      code: 'SH-001',
+      name: 'Marin Estevan',
+      jobTitle: 'Cutter',
+      groups: [
+        ['Cutter – respirable crystalline silica', since, null],
+        ['Cutter – noise', since, null],
+      ],
+    },
+    {
+      code: 'SH-002',
+      name: null,
+      jobTitle: 'Cutter',
+      groups: [
+        ['Cutter – respirable crystalline silica', since, null],
+        ['Cutter – noise', since, null],
+      ],
+    },
+    {
+      code: 'SH-003',
+      name: 'Ari Kowalczyk-Dunn',
+      jobTitle: 'Cutter',
+      groups: [
+        ['Cutter – respirable crystalline silica', since, null],
+        ['Cutter – noise', since, null],
+      ],
+    },
     { code: 'SH-004', name: null, jobTitle: 'Polisher', groups: [['Polisher – respirable crystalline silica', since, null]] },
     { code: 'SH-005', name: 'Remy Aldana', jobTitle: 'Polisher', groups: [['Polisher – respirable crystalline silica', since, null]] },
     {
@@ -403,17 +474,31 @@ export async function seedDemo(db: Db, options: { password: string; clock: Clock
     );
 
     for (const demo of demoOrganizations) {
-      const organization = tx.insert(organizations).values({ name: demo.name, slug: demo.slug, settings: {}, ...times }).returning().get();
+      const organization = tx
+        .insert(organizations)
+        .values({ name: demo.name, slug: demo.slug, settings: {}, ...times })
+        .returning()
+        .get();
       const organizationId = organization.id;
 
       people.forEach((person, index) => {
         const role = person.roles[demo.key];
-        if (role) tx.insert(memberships).values({ organizationId, userId: userIds[index], role, ...times }).run();
+        if (role)
+          tx.insert(memberships)
+            .values({ organizationId, userId: userIds[index], role, ...times })
+            .run();
       });
 
       const siteIds = new Map<string, number>();
       for (const site of demo.sites) {
-        siteIds.set(site.name, tx.insert(sites).values({ organizationId, ...site, ...times }).returning().get().id);
+        siteIds.set(
+          site.name,
+          tx
+            .insert(sites)
+            .values({ organizationId, ...site, ...times })
+            .returning()
+            .get().id,
+        );
       }
 
       const agentRows = new Map<string, { id: number; limits: Array<DemoLimit & { id: number }> }>();
@@ -433,7 +518,11 @@ export async function seedDemo(db: Db, options: { password: string; clock: Clock
           .get();
         const limits = agent.limits.map((limit) => ({
           ...limit,
-          id: tx.insert(oelEntries).values({ organizationId, agentId: row.id, ...limit, ...times }).returning().get().id,
+          id: tx
+            .insert(oelEntries)
+            .values({ organizationId, agentId: row.id, ...limit, ...times })
+            .returning()
+            .get().id,
         }));
         agentRows.set(agent.key, { id: row.id, limits });
       }
@@ -471,13 +560,15 @@ export async function seedDemo(db: Db, options: { password: string; clock: Clock
       for (const worker of demo.workers) {
         const workerId = tx
           .insert(workers)
-          .values({ organizationId, code: worker.code, name: worker.name, jobTitle: worker.jobTitle, ...times })
+          .values({ organizationId, code: worker.code, name: worker.name, jobTitle: worker.jobTitle, email: demoWorkerEmail(worker.name, demo.slug), ...times })
           .returning()
           .get().id;
         for (const [groupName, fromDate, toDate] of worker.groups) {
           const exposureGroupId = groupIds.get(groupName);
           if (exposureGroupId === undefined) throw new Error(`Demo worker ${worker.code}: no group "${groupName}"`);
-          tx.insert(groupMemberships).values({ organizationId, workerId, exposureGroupId, fromDate, toDate, ...times }).run();
+          tx.insert(groupMemberships)
+            .values({ organizationId, workerId, exposureGroupId, fromDate, toDate, ...times })
+            .run();
         }
       }
 
@@ -499,6 +590,8 @@ export async function seedDemo(db: Db, options: { password: string; clock: Clock
   });
   // Noise logs go in before the decision records, so those are made from the groups' current data.
   if (outcome.seeded) seedDemoNoiseLogs(db, options.clock);
+  if (outcome.seeded) seedDemoProtectors(db, options.clock);
+  if (outcome.seeded) seedDemoWorkerLetters(db, options.clock);
   if (outcome.seeded && options.decisions !== false) await seedDemoDecisions(db, options.clock);
   return outcome;
 }

@@ -10,6 +10,15 @@ export interface CapturedMessage {
   receivedAt: string;
   text: string;
   html: string;
+  /** Attached files as received (tests read the bytes; the Outbox lists their names and sizes). */
+  attachments: CapturedAttachment[];
+}
+
+export interface CapturedAttachment {
+  filename: string;
+  contentType: string;
+  size: number;
+  content: Buffer;
 }
 
 /** The capture's in-memory mailbox, read by the Outbox endpoints and by tests. */
@@ -100,6 +109,12 @@ export function startCaptureServer(options: { port?: number; now?: () => Date } 
             receivedAt: now().toISOString(),
             text: parsed.text ?? '',
             html: typeof parsed.html === 'string' ? parsed.html : '',
+            attachments: parsed.attachments.map((attachment) => ({
+              filename: attachment.filename ?? 'attachment',
+              contentType: attachment.contentType,
+              size: attachment.size,
+              content: attachment.content,
+            })),
           });
           // Answer only after storing, so the sender's `send` resolves once the message is readable.
           callback();

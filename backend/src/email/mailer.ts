@@ -5,6 +5,14 @@ export interface MailMessage {
   subject: string;
   text: string;
   html: string;
+  /** Files sent with the message (e.g. a worker letter's PDF). */
+  attachments?: MailAttachment[];
+}
+
+export interface MailAttachment {
+  filename: string;
+  content: Buffer;
+  contentType: string;
 }
 
 /** Sends e-mail. The app only knows this interface; server.ts and the tests choose the transport. */

@@ -3,12 +3,7 @@ import type { MailMessage } from './mailer';
 
 /** Escapes text for HTML bodies (names and organization names are user input). */
 export function escapeHtml(value: string): string {
-  return value
-    .replaceAll('&', '&amp;')
-    .replaceAll('<', '&lt;')
-    .replaceAll('>', '&gt;')
-    .replaceAll('"', '&quot;')
-    .replaceAll("'", '&#39;');
+  return value.replaceAll('&', '&amp;').replaceAll('<', '&lt;').replaceAll('>', '&gt;').replaceAll('"', '&quot;').replaceAll("'", '&#39;');
 }
 
 /** One plain layout for every message: a heading, paragraphs, one button-like link. */
@@ -28,14 +23,7 @@ function formatWhen(moment: Date): string {
   return `${moment.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
 }
 
-export function invitationEmail(input: {
-  to: string;
-  organizationName: string;
-  inviterName: string;
-  role: Role;
-  link: string;
-  expiresAt: Date;
-}): MailMessage {
+export function invitationEmail(input: { to: string; organizationName: string; inviterName: string; role: Role; link: string; expiresAt: Date }): MailMessage {
   const role = roleLabels[input.role];
   const subject = `You are invited to ${input.organizationName} on Bellwether`;
   const lines = [
@@ -89,19 +77,139 @@ export function stillStretchEmail(input: {
   stretches: ReadonlyArray<{ startS: number; endS: number }>;
   stillMinutes: number;
   link: string;
+  /** The Notification settings page, where this e-mail can be switched off. */
+  settingsLink?: string;
 }): MailMessage {
   const subject = `Noise log ${input.fileName}: the meter was still for ${input.stillMinutes} min or more`;
-  const spans = input.stretches.map((stretch) => `${clockFromSeconds(stretch.startS)}–${clockFromSeconds(stretch.endS)} (${Math.round((stretch.endS - stretch.startS) / 60)} min)`);
+  const spans = input.stretches.map(
+    (stretch) => `${clockFromSeconds(stretch.startS)}–${clockFromSeconds(stretch.endS)} (${Math.round((stretch.endS - stretch.startS) / 60)} min)`,
+  );
   const lines = [
     `Hello ${input.name},`,
     `The noise log ${input.fileName} you uploaded to ${input.organizationName} (worker ${input.workerCode}, shift of ${input.shiftDate}) has ${spans.length === 1 ? 'a still stretch' : `${spans.length} still stretches`} of at least ${input.stillMinutes} minutes, counted from the log start: ${spans.join('; ')}.`,
     'During a still stretch the meter detected no motion: it may have been put down rather than worn. Review the log and mask the span with a reason if it was not worn, before accepting it into the group.',
   ];
-  const footer = 'Statistics support and never replace the judgement of a qualified hygienist. Hearing conservation requirements come from the local regulations that apply.';
+  const caution =
+    'Statistics support and never replace the judgement of a qualified hygienist. Hearing conservation requirements come from the local regulations that apply.';
+  const footer = input.settingsLink ? `${caution} Choose which e-mails you get under Notification settings: ${input.settingsLink}` : caution;
   return {
     to: input.to,
     subject,
     text: `${lines.join('\n\n')}\n\n${input.link}\n\n${footer}\n`,
     html: layout(subject, lines, { label: 'Review the noise log', url: input.link }, footer),
   };
+}
+
+// ---------------------------------------------------------------- notifications (docs/decisions/021-notifications.md)
+
+/** PRODUCT.md "Cautions shown in the product", on every message that shows a result. */
+export const cautionLine =
+  'Statistics support and never replace the judgement of a qualified hygienist. Limits and sampling duties come from the local regulations that apply.';
+
+/** What every notification needs besides its own words: who, where it links, and where to turn it off. */
+export interface NotificationEnvelope {
+  to: string;
+  name: string;
+  organizationName: string;
+  link: string;
+  /** The Notification settings page, so each message says how to stop it. */
+  settingsLink: string;
+}
+
+function notificationMessage(envelope: NotificationEnvelope, subject: string, lines: string[], linkLabel: string, caution: boolean): MailMessage {
+  const footerParts = [
+    ...(caution ? [cautionLine] : []),
+    `You receive this as a member of ${envelope.organizationName}. Choose which e-mails you get under Notification settings: ${envelope.settingsLink}`,
+  ];
+  const body = [`Hello ${envelope.name},`, ...lines];
+  return {
+    to: envelope.to,
+    subject,
+    text: `${body.join('\n\n')}\n\n${envelope.link}\n\n${footerParts.join('\n\n')}\n`,
+    html: layout(subject, body, { label: linkLabel, url: envelope.link }, footerParts.join(' ')),
+  };
+}
+
+/** A decision record was approved: to its drafter and the organization's managers. */
+export function decisionApprovedEmail(
+  input: NotificationEnvelope & { groupName: string; recordId: number; approverName: string; categoryText: string; reviewDate: string },
+): MailMessage {
+  return notificationMessage(
+    input,
+    `Decision record ${input.recordId} approved: ${input.groupName}`,
+    [
+      `${input.approverName} approved decision record ${input.recordId} for the exposure group "${input.groupName}" in ${input.organizationName}. Its figures and the results they came from are now frozen.`,
+      `${input.categoryText} The next review is due by ${input.reviewDate}.`,
+    ],
+    'Open the decision record',
+    true,
+  );
+}
+
+/** A draft was returned: to its drafter, with the reviewer's reason. */
+export function decisionReturnedEmail(
+  input: NotificationEnvelope & { groupName: string; recordId: number; reviewerName: string; reason: string },
+): MailMessage {
+  return notificationMessage(
+    input,
+    `Decision record ${input.recordId} returned for changes: ${input.groupName}`,
+    [
+      `${input.reviewerName} returned your draft decision record ${input.recordId} for the exposure group "${input.groupName}" in ${input.organizationName}.`,
+      `The reason given: “${input.reason}”`,
+      'Edit the draft and send it back for review when it is ready.',
+    ],
+    'Open the draft',
+    false,
+  );
+}
+
+/** A newly approved record puts the group in another category than its previous approved record. */
+export function categoryChangedEmail(
+  input: NotificationEnvelope & {
+    groupName: string;
+    recordId: number;
+    previousRecordId: number;
+    previousCategory: number;
+    category: number;
+    categoryText: string;
+  },
+): MailMessage {
+  const direction = input.category > input.previousCategory ? 'up' : 'down';
+  return notificationMessage(
+    input,
+    `Exposure category ${direction} from ${input.previousCategory} to ${input.category}: ${input.groupName}`,
+    [
+      `Decision record ${input.recordId}, just approved, puts the exposure group "${input.groupName}" in ${input.organizationName} in category ${input.category}; the previous approved record (${input.previousRecordId}) had category ${input.previousCategory}.`,
+      input.categoryText,
+      direction === 'up'
+        ? 'A higher category usually calls for a look at the controls and the actions in the record.'
+        : 'A lower category may allow a longer review interval; the record’s rationale says why.',
+    ],
+    'Open the decision record',
+    true,
+  );
+}
+
+/** An approved record's review date is 30 days away or less (or has passed). */
+export function reviewDueEmail(
+  input: NotificationEnvelope & { groupName: string; recordId: number; reviewDate: string; daysLeft: number; categoryText: string },
+): MailMessage {
+  const when =
+    input.daysLeft > 1
+      ? `in ${input.daysLeft} days, on ${input.reviewDate}`
+      : input.daysLeft === 1
+        ? `tomorrow, ${input.reviewDate}`
+        : input.daysLeft === 0
+          ? `today, ${input.reviewDate}`
+          : `on ${input.reviewDate}, ${-input.daysLeft} days ago`;
+  return notificationMessage(
+    input,
+    `Review due ${input.daysLeft >= 0 ? `by ${input.reviewDate}` : `since ${input.reviewDate}`}: ${input.groupName}`,
+    [
+      `The approved decision record ${input.recordId} for the exposure group "${input.groupName}" in ${input.organizationName} is due for review ${when}.`,
+      `${input.categoryText} Plan the sampling for a new assessment and draft a new record when the results are in.`,
+    ],
+    'Open the decision record',
+    true,
+  );
 }

@@ -1,13 +1,13 @@
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { RequestHandler } from 'express';
 import { z } from 'zod';
 import { idParam } from '@schema/columns';
 import { memberships, organizations, type Membership, type Organization } from '@schema/organizations';
 import { can, type Permission } from '@schema/permissions';
-import type { User } from '@schema/users';
+import { users, type User } from '@schema/users';
 import type { Db } from '../db/client';
 import { Forbidden, NotFound, Unauthorized } from '../errors';
-import { findUserById, membershipsOf } from '../services/users';
+import { membershipsOf } from '../services/users';
 import { parseParams } from '../validation';
 
 declare global {
@@ -26,9 +26,16 @@ declare global {
 
 /** 401 unless a signed-in user is in the session; puts the user in `res.locals.user`. */
 export function requireUser(db: Db): RequestHandler {
+  // Prepared once per route: these lookups run on every request, and building the query each time
+  // was a measurable share of a cached read's cost (tests/bench/api.bench.ts).
+  const userById = db
+    .select()
+    .from(users)
+    .where(eq(users.id, sql.placeholder('userId')))
+    .prepare();
   return (req, res, next) => {
     const userId = req.session?.userId;
-    const user = userId === undefined ? undefined : findUserById(db, userId);
+    const user = userId === undefined ? undefined : userById.get({ userId });
     if (!user) return next(new Unauthorized());
     res.locals.user = user;
     next();
@@ -43,16 +50,17 @@ const organizationParams = z.object({ orgId: idParam });
  * does not exist, so ids of other organizations are never confirmed. Needs `requireUser` first.
  */
 export function requireMembership(db: Db): RequestHandler {
+  const activeMembership = db
+    .select({ membership: memberships, organization: organizations })
+    .from(memberships)
+    .innerJoin(organizations, eq(organizations.id, memberships.organizationId))
+    .where(and(eq(memberships.organizationId, sql.placeholder('orgId')), eq(memberships.userId, sql.placeholder('userId')), eq(memberships.active, true)))
+    .prepare();
   return (req, res, next) => {
     const { orgId } = parseParams(organizationParams, { orgId: req.params.orgId });
     const user = res.locals.user;
     if (!user) return next(new Unauthorized());
-    const row = db
-      .select({ membership: memberships, organization: organizations })
-      .from(memberships)
-      .innerJoin(organizations, eq(organizations.id, memberships.organizationId))
-      .where(and(eq(memberships.organizationId, orgId), eq(memberships.userId, user.id), eq(memberships.active, true)))
-      .get();
+    const row = activeMembership.get({ orgId, userId: user.id });
     if (!row) return next(new NotFound(`No organization ${orgId} among yours`));
     res.locals.membership = row.membership;
     res.locals.organization = row.organization;

@@ -10,17 +10,11 @@ import express, { type Express } from 'express';
  */
 export function serveClient(app: Express, clientDir: string): void {
   const indexFile = join(clientDir, 'index.html');
-  app.use(
-    '/assets',
-    express.static(join(clientDir, 'assets'), { immutable: true, maxAge: '365d', index: false, fallthrough: false }),
-  );
+  app.use('/assets', express.static(join(clientDir, 'assets'), { immutable: true, maxAge: '365d', index: false, fallthrough: false }));
   app.use(express.static(clientDir, { index: false, maxAge: 0 }));
   app.get('/{*splat}', (_req, res) => {
     if (!existsSync(indexFile)) {
-      res
-        .status(503)
-        .type('text/plain')
-        .send('The client has not been built yet. Run `npm run build` (npm start builds it for you), then reload.\n');
+      res.status(503).type('text/plain').send('The client has not been built yet. Run `npm run build` (npm start builds it for you), then reload.\n');
       return;
     }
     res.setHeader('Cache-Control', 'no-cache');

@@ -22,15 +22,13 @@ function sqliteCode(error: unknown): string | undefined {
 function asHttpError(error: unknown, jsonLimit: string): HttpError | undefined {
   if (error instanceof HttpError) return error;
   if (isBodyParserError(error)) {
-    if (error.type === 'entity.too.large')
-      return new HttpError(413, 'payload_too_large', `The request body is larger than the limit of ${jsonLimit}`);
+    if (error.type === 'entity.too.large') return new HttpError(413, 'payload_too_large', `The request body is larger than the limit of ${jsonLimit}`);
     if (error.type === 'entity.parse.failed') return new HttpError(400, 'bad_request', 'The request body is not valid JSON');
     if (error.status && error.status >= 400 && error.status < 500)
       return new HttpError(400, 'bad_request', `The request body could not be read (${error.type})`);
   }
   // serve-static's "no such file" under /assets.
-  if (typeof error === 'object' && error !== null && (error as { status?: unknown }).status === 404)
-    return new HttpError(404, 'not_found', 'File not found');
+  if (typeof error === 'object' && error !== null && (error as { status?: unknown }).status === 404) return new HttpError(404, 'not_found', 'File not found');
   // A safety net: services should check first and say which record clashes.
   const code = sqliteCode(error);
   if (code === 'SQLITE_CONSTRAINT_UNIQUE') return new HttpError(409, 'conflict', 'A record with these values already exists');

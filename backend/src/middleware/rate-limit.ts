@@ -24,8 +24,7 @@ function limiter(settings: RateLimit, keyGenerator: (req: Request) => string, fa
     skipSuccessfulRequests: failuresOnly,
     standardHeaders: 'draft-7',
     legacyHeaders: false,
-    handler: (_req, _res, next) =>
-      next(new HttpError(429, 'rate_limited', `Too many attempts. Wait ${minutes} minutes and try again.`)),
+    handler: (_req, _res, next) => next(new HttpError(429, 'rate_limited', `Too many attempts. Wait ${minutes} minutes and try again.`)),
   });
 }
 

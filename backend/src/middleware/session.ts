@@ -1,4 +1,5 @@
 import type { Request, Response } from 'express';
+import type { Statement } from 'better-sqlite3';
 import session from 'express-session';
 import sqliteStoreFactory from 'better-sqlite3-session-store';
 import type { AppConfig } from '../config';
@@ -14,26 +15,86 @@ declare module 'express-session' {
   }
 }
 
-// The package's declaration (types/jstat.d.ts) types the class as the abstract Store; it does
-// implement get/set/destroy, which a subclass must be able to see.
-type ConcreteStore = new (options: { client: Db['$client'] }) => session.Store &
-  Pick<session.MemoryStore, 'get' | 'set' | 'destroy'>;
+// The package ships no types (types/ declares it as the abstract Store); this is what its class implements.
+type StoreCallback = (error?: unknown) => void;
+interface SqliteStoreInstance extends session.Store {
+  get(sid: string, callback: (error: unknown, data?: session.SessionData | null) => void): void;
+  set(sid: string, data: session.SessionData, callback?: StoreCallback): void;
+  destroy(sid: string, callback?: StoreCallback): void;
+  touch(sid: string, data: session.SessionData, callback?: StoreCallback): void;
+}
+type ConcreteStore = new (options: { client: Db['$client'] }) => SqliteStoreInstance;
 const SqliteStore = sqliteStoreFactory(session) as unknown as ConcreteStore;
 
+/** A rolling session's stored expiry is pushed out at most this often (the cookie's on every response). */
+const TOUCH_INTERVAL_MS = 60_000;
+
 /**
- * better-sqlite3-session-store starts a 15-minute clean-up timer it never stops; this subclass
- * keeps the timer from holding the process open and stops it on close (server shutdown, tests).
+ * better-sqlite3-session-store, made cheaper per request and stoppable:
+ * - the package prepares its SQL on every call; `get` and `touch` here keep one prepared statement each
+ *   (same SQL as the package);
+ * - with `rolling: true` express-session touches the stored session on every request; here a session's
+ *   expiry is written at most once a minute, so a page's burst of reads does not write to the database
+ *   each time (the stored expiry may lag the cookie's by up to a minute, against a 12-hour lifetime);
+ * - the package starts a 15-minute clean-up timer it never stops; this keeps the timer from holding the
+ *   process open and stops it on close (server shutdown, tests).
  */
 class ClosableSqliteStore extends SqliteStore {
   // `declare`: the base constructor calls startInterval() before subclass fields would be
   // initialised, and an initialised field would wipe the timer it set.
   declare private timer: NodeJS.Timeout | undefined;
+  private readonly client: Db['$client'];
+  private readonly lastTouch = new Map<string, number>();
+  private selectSession: Statement<unknown[]> | undefined;
+  private updateExpiry: Statement<unknown[]> | undefined;
+  private deleteSession: Statement<unknown[]> | undefined;
+
+  constructor(options: { client: Db['$client'] }) {
+    super(options);
+    this.client = options.client;
+  }
 
   /** Replaces the base class's timer (called from its constructor). */
   startInterval() {
     const base = this as unknown as { clearExpiredSessions(): void; expired: { intervalMs: number } };
     this.timer = setInterval(() => base.clearExpiredSessions(), base.expired.intervalMs);
     this.timer.unref();
+  }
+
+  override get(sid: string, callback: (error: unknown, data?: session.SessionData | null) => void) {
+    try {
+      this.selectSession ??= this.client.prepare("SELECT sess FROM sessions WHERE sid = ? AND datetime('now') < datetime(expire)");
+      const row = this.selectSession.get(sid) as { sess: string } | undefined;
+      callback(null, row?.sess ? (JSON.parse(row.sess) as session.SessionData) : null);
+    } catch (error) {
+      callback(error);
+    }
+  }
+
+  override touch(sid: string, data: session.SessionData, callback?: StoreCallback) {
+    const now = Date.now();
+    if (now - (this.lastTouch.get(sid) ?? 0) < TOUCH_INTERVAL_MS) return callback?.();
+    try {
+      const expires = data.cookie?.expires ? new Date(data.cookie.expires) : new Date(now + 86_400_000);
+      this.updateExpiry ??= this.client.prepare("UPDATE sessions SET expire = ? WHERE sid = ? AND datetime('now') < datetime(expire)");
+      this.updateExpiry.run(expires.toISOString(), sid);
+      if (this.lastTouch.size > 10_000) this.lastTouch.clear(); // bounded: forgetting only means one more write
+      this.lastTouch.set(sid, now);
+      callback?.();
+    } catch (error) {
+      callback?.(error);
+    }
+  }
+
+  override destroy(sid: string, callback?: StoreCallback) {
+    this.lastTouch.delete(sid);
+    try {
+      this.deleteSession ??= this.client.prepare('DELETE FROM sessions WHERE sid = ?');
+      this.deleteSession.run(sid);
+      callback?.();
+    } catch (error) {
+      callback?.(error);
+    }
   }
 
   close() {

@@ -14,6 +14,7 @@ import {
   returnDecisionDraft,
   updateDecisionDraft,
 } from '../services/decision-records';
+import { notifyDecisionApproved, notifyDecisionReturned } from '../services/notifications';
 import { parseBody, parseParams, parseQuery } from '../validation';
 import { orgRoute } from './define-route';
 
@@ -43,7 +44,9 @@ export const decisionRecordRoutes = [
     handler: async ({ req, res, deps, organization }) => {
       const { groupId } = parseParams(groupParams, req.params);
       const query = parseQuery(assessmentQuery, req.query);
-      res.json(await proposeDecision(deps.db, deps.clock, deps.assessment, { organizationId: organization.id, groupId, exclude: query.exclude, prior: query.prior }));
+      res.json(
+        await proposeDecision(deps.db, deps.clock, deps.assessment, { organizationId: organization.id, groupId, exclude: query.exclude, prior: query.prior }),
+      );
     },
   }),
   orgRoute({
@@ -95,7 +98,10 @@ export const decisionRecordRoutes = [
     summary: 'Approve a draft (never one’s own): freezes data, hash, versions, settings and figures',
     handler: async ({ req, res, deps, organization, user }) => {
       const { recordId } = parseParams(recordParams, req.params);
-      res.json(await approveDecisionDraft(deps.db, deps.clock, deps.assessment, { organizationId: organization.id, recordId, actor: user }));
+      const view = await approveDecisionDraft(deps.db, deps.clock, deps.assessment, { organizationId: organization.id, recordId, actor: user });
+      // The approval is committed; e-mail failures are logged and kept, never undo it (services/notifications.ts).
+      await notifyDecisionApproved(deps, { organizationId: organization.id, recordId });
+      res.json(view);
     },
   }),
   orgRoute({
@@ -103,10 +109,12 @@ export const decisionRecordRoutes = [
     path: `${recordPath}/return`,
     permission: 'decision:approve',
     summary: 'Return a draft to its drafter with a comment',
-    handler: ({ req, res, deps, organization, user }) => {
+    handler: async ({ req, res, deps, organization, user }) => {
       const { recordId } = parseParams(recordParams, req.params);
       const { comment } = parseBody(decisionReturn, req.body);
-      res.json(returnDecisionDraft(deps.db, deps.clock, { organizationId: organization.id, recordId, actor: user, comment }));
+      const view = returnDecisionDraft(deps.db, deps.clock, { organizationId: organization.id, recordId, actor: user, comment });
+      await notifyDecisionReturned(deps, { organizationId: organization.id, recordId });
+      res.json(view);
     },
   }),
   orgRoute({

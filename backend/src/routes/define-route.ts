@@ -5,6 +5,7 @@ import type { User } from '@schema/users';
 import type { AppDeps } from '../deps';
 import { requireMembership, requirePermission, requirePermissionInAnyOrganization, requireUser } from '../middleware/auth';
 import type { LimiterName } from '../middleware/rate-limit';
+import { requireOwnedIds } from './owned-collections';
 
 /**
  * The route inventory. Every API route is declared with one of `publicRoute`, `userRoute` or
@@ -65,7 +66,10 @@ export const publicRoute = (route: Omit<PublicRoute, 'access'>): PublicRoute => 
 /** A route for any signed-in user, outside any one organization (`/me`, the outbox). */
 export const userRoute = (route: Omit<UserRoute, 'access'>): UserRoute => ({ ...route, access: 'user' });
 
-/** A route inside one organization: membership of `:orgId` (else 404), then `permission` (else 403). */
+/**
+ * A route inside one organization: membership of `:orgId` (else 404), then `permission` (else 403),
+ * then each id in the path must not belong to another organization (else 404, routes/owned-collections.ts).
+ */
 export const orgRoute = (route: Omit<OrganizationRoute, 'access'>): OrganizationRoute => ({
   ...route,
   access: 'organization',
@@ -99,8 +103,10 @@ function guardsFor(route: RouteDefinition, deps: AppDeps): RequestHandler[] {
       return route.permissionInAnyOrganization
         ? [requireUser(deps.db), requirePermissionInAnyOrganization(deps.db, route.permissionInAnyOrganization)]
         : [requireUser(deps.db)];
-    case 'organization':
-      return [requireUser(deps.db), requireMembership(deps.db), requirePermission(route.permission)];
+    case 'organization': {
+      const owned = requireOwnedIds(deps.db, route.path);
+      return [requireUser(deps.db), requireMembership(deps.db), requirePermission(route.permission), ...(owned ? [owned] : [])];
+    }
   }
 }
 
@@ -127,12 +133,7 @@ function handlerFor(route: RouteDefinition, deps: AppDeps): RequestHandler {
 }
 
 /** Checks the inventory and registers every enabled route on `router` with its guards. */
-export function mountRoutes(
-  router: Router,
-  routes: readonly RouteDefinition[],
-  deps: AppDeps,
-  limiters: Record<LimiterName, RequestHandler>,
-): void {
+export function mountRoutes(router: Router, routes: readonly RouteDefinition[], deps: AppDeps, limiters: Record<LimiterName, RequestHandler>): void {
   checkRouteDefinitions(routes);
   for (const route of routes) {
     if (route.enabledWhen && !route.enabledWhen(deps)) continue;

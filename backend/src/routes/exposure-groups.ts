@@ -2,6 +2,8 @@ import { z } from 'zod';
 import { idParam } from '@schema/columns';
 import { exposureGroupCreate, exposureGroupUpdate } from '@schema/exposure-groups';
 import { exposureGroupListQuery } from '@schema/list-query';
+import { sendCachedJson } from '../middleware/read-cache';
+import { today } from '../services/dates';
 import { createExposureGroup, getExposureGroup, listExposureGroups, updateExposureGroup } from '../services/exposure-groups';
 import { groupOverview } from '../services/group-overview';
 import { listGroupMembers } from '../services/workers';
@@ -19,7 +21,11 @@ export const exposureGroupRoutes = [
     permission: 'org:read',
     summary: 'Exposure groups: search, site and agent filters, sort, page, archived filter',
     handler: ({ req, res, deps, organization }) => {
-      res.json(listExposureGroups(deps.db, deps.clock, organization.id, parseQuery(exposureGroupListQuery, req.query)));
+      const query = parseQuery(exposureGroupListQuery, req.query);
+      // Cached until the next write (middleware/read-cache.ts); member counts are as of today.
+      sendCachedJson(req, res, deps.db, `exposure-groups:${organization.id}:${today(deps.clock)}:${JSON.stringify(query)}`, () =>
+        listExposureGroups(deps.db, deps.clock, organization.id, query),
+      );
     },
   }),
   orgRoute({

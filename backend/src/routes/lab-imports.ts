@@ -26,7 +26,11 @@ const upload = multer({
   fileFilter: (_req, file, accept) => {
     const named = /\.(csv|txt)$/i.test(file.originalname);
     if (!named || !textTypes.has(file.mimetype.toLowerCase())) {
-      accept(new BadRequest(`Upload the lab results as a .csv (or .txt) text file; "${file.originalname}" (${file.mimetype}) is not one`, { file: 'Use a .csv or .txt file' }));
+      accept(
+        new BadRequest(`Upload the lab results as a .csv (or .txt) text file; "${file.originalname}" (${file.mimetype}) is not one`, {
+          file: 'Use a .csv or .txt file',
+        }),
+      );
       return;
     }
     accept(null, true);
@@ -38,7 +42,9 @@ function receiveFile(req: Request, res: Response): Promise<Express.Multer.File> 
     upload(req, res, (error: unknown) => {
       if (error instanceof multer.MulterError) {
         if (error.code === 'LIMIT_FILE_SIZE')
-          return reject(new HttpError(413, 'payload_too_large', `The file is larger than the limit of ${labImportMaximumBytes / 1024 / 1024} MB; nothing was stored`));
+          return reject(
+            new HttpError(413, 'payload_too_large', `The file is larger than the limit of ${labImportMaximumBytes / 1024 / 1024} MB; nothing was stored`),
+          );
         return reject(new BadRequest(`Send one file in the form field "file" (${error.message})`, { file: 'Send one CSV file in the field "file"' }));
       }
       if (error) return reject(error);
@@ -56,7 +62,9 @@ export const labImportRoutes = [
     summary: 'Upload a lab results CSV (multipart field "file", ≤ 5 MB): stored with its SHA-256, answered with a preview',
     handler: async ({ req, res, deps, organization, user }) => {
       const file = await receiveFile(req, res);
-      res.status(201).json(uploadLabFile(deps.db, deps.clock, { organizationId: organization.id, actor: user, fileName: file.originalname, bytes: file.buffer }));
+      res
+        .status(201)
+        .json(uploadLabFile(deps.db, deps.clock, { organizationId: organization.id, actor: user, fileName: file.originalname, bytes: file.buffer }));
     },
   }),
   orgRoute({

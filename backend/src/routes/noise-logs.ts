@@ -11,7 +11,6 @@ import {
   noiseMaskUpdate,
   noiseSettingsUpdate,
 } from '@schema/noise-logs';
-import { stillStretchEmail } from '../email/templates';
 import { BadRequest } from '../errors';
 import {
   acceptNoiseLog,
@@ -27,6 +26,7 @@ import {
   updateNoiseSettings,
   uploadNoiseLog,
 } from '../services/noise-logs';
+import { notifyStillStretch } from '../services/notifications';
 import { parseBody, parseParams, parseQuery } from '../validation';
 import { orgRoute } from './define-route';
 import { fileReceiver } from './receive-file';
@@ -80,24 +80,18 @@ export const noiseLogRoutes = [
       });
       const view = getNoiseLog(deps.db, organization.id, stored.id);
       if (stored.stillStretchOverLimit) {
-        try {
-          await deps.mailer.send(
-            stillStretchEmail({
-              to: user.email,
-              name: user.name,
-              organizationName: organization.name,
-              fileName: file.originalname,
-              workerCode: view.workerCode,
-              shiftDate: view.shiftDate,
-              stretches: view.stillStretches ?? [],
-              stillMinutes: organizationNoiseSettings(deps.db, organization.id).stillMinutes,
-              link: `${deps.config.appUrl}/orgs/${organization.id}/noise-logs/${stored.id}`,
-            }),
-          );
-        } catch (error) {
-          // The log is stored either way; the review page shows the same notice.
-          req.log.error({ err: error }, 'the still-stretch e-mail could not be sent');
-        }
+        // The log is stored either way (the review page shows the same notice); a failed e-mail is logged and kept.
+        await notifyStillStretch(deps, {
+          organizationId: organization.id,
+          organizationName: organization.name,
+          uploaderUserId: user.id,
+          noiseLogId: stored.id,
+          fileName: file.originalname,
+          workerCode: view.workerCode,
+          shiftDate: view.shiftDate,
+          stretches: view.stillStretches ?? [],
+          stillMinutes: organizationNoiseSettings(deps.db, organization.id).stillMinutes,
+        });
       }
       res.status(201).json(view);
     },
@@ -222,7 +216,9 @@ export const noiseLogRoutes = [
     handler: ({ req, res, deps, organization, user }) => {
       const { logId, maskId } = parseParams(maskParams, req.params);
       const body = parseBody(noiseMaskRemove, req.body);
-      res.json(changeNoiseMask(deps.db, deps.clock, { organizationId: organization.id, logId, actor: user, change: { kind: 'remove', maskId, reason: body.reason } }));
+      res.json(
+        changeNoiseMask(deps.db, deps.clock, { organizationId: organization.id, logId, actor: user, change: { kind: 'remove', maskId, reason: body.reason } }),
+      );
     },
   }),
   orgRoute({

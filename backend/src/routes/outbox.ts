@@ -30,7 +30,8 @@ export const outboxRoutes = [
       const { id } = parseParams(messageParams, req.params);
       const message = deps.outbox!.get(id);
       if (!message) throw new NotFound(`No e-mail ${id} in the outbox`);
-      res.json(message);
+      // Attachments by name, type and size; their bytes stay in the capture.
+      res.json({ ...message, attachments: message.attachments.map(({ filename, contentType, size }) => ({ filename, contentType, size })) });
     },
   }),
 ];

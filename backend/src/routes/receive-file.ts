@@ -32,7 +32,10 @@ export function fileReceiver(options: {
     new Promise((resolve, reject) => {
       upload(req, res, (error: unknown) => {
         if (error instanceof multer.MulterError) {
-          if (error.code === 'LIMIT_FILE_SIZE') return reject(new HttpError(413, 'payload_too_large', `The file is larger than the limit of ${megabytes} MB for ${options.what}; nothing was stored`));
+          if (error.code === 'LIMIT_FILE_SIZE')
+            return reject(
+              new HttpError(413, 'payload_too_large', `The file is larger than the limit of ${megabytes} MB for ${options.what}; nothing was stored`),
+            );
           return reject(new BadRequest(`Send one file in the form field "file" (${error.message})`, { file: 'Send one CSV file in the field "file"' }));
         }
         if (error) return reject(error);

@@ -2,14 +2,7 @@ import { z } from 'zod';
 import { idParam } from '@schema/columns';
 import { archivedFilter } from '@schema/list-query';
 import { samplingGuidance, samplingPlanCreate, samplingPlanRedraw, samplingPlanUpdate } from '@schema/sampling-plans';
-import {
-  createSamplingPlan,
-  fieldSheet,
-  getSamplingPlan,
-  listGroupPlans,
-  redrawSamplingPlan,
-  updateSamplingPlan,
-} from '../services/sampling-plans';
+import { createSamplingPlan, fieldSheet, getSamplingPlan, listGroupPlans, redrawSamplingPlan, updateSamplingPlan } from '../services/sampling-plans';
 import { parseBody, parseParams, parseQuery } from '../validation';
 import { nameAccessOf } from './access';
 import { archiveRoutes } from './archive-routes';
@@ -98,6 +91,11 @@ export const samplingPlanRoutes = [
     param: 'planId',
     summaries: { archive: 'Archive a sampling plan', unarchive: 'Bring an archived sampling plan back' },
     apply: ({ deps, organization, user, membership }, planId, archived, reason) =>
-      updateSamplingPlan(deps.db, deps.clock, { organizationId: organization.id, planId, actor: user, changes: { archived }, reason }, nameAccessOf(membership)),
+      updateSamplingPlan(
+        deps.db,
+        deps.clock,
+        { organizationId: organization.id, planId, actor: user, changes: { archived }, reason },
+        nameAccessOf(membership),
+      ),
   }),
 ];

@@ -195,8 +195,7 @@ export function listOelEntries(db: Db, organizationId: number, query: OelEntryLi
     query.agentId ? eq(oelEntries.agentId, query.agentId) : undefined,
     searchCondition(query.q, [oelEntries.source, oelEntries.notes, agents.name]),
   );
-  const total =
-    db.select({ total: count() }).from(oelEntries).innerJoin(agents, eq(agents.id, oelEntries.agentId)).where(where).get()?.total ?? 0;
+  const total = db.select({ total: count() }).from(oelEntries).innerJoin(agents, eq(agents.id, oelEntries.agentId)).where(where).get()?.total ?? 0;
   const { limit, offset } = pageWindow(query.page, query.pageSize);
   const items = db
     .select(oelEntryColumns)
@@ -279,7 +278,8 @@ export function updateOelEntry(
     const current = getOelEntry(tx, input.organizationId, input.entryId);
     const { before, after } = changedFields(current as OelEntry, input.changes);
     if (Object.keys(after).length === 0) return;
-    const agent = after.agentId !== undefined ? agentFromBody(tx, input.organizationId, Number(after.agentId)) : findAgent(tx, input.organizationId, current.agentId);
+    const agent =
+      after.agentId !== undefined ? agentFromBody(tx, input.organizationId, Number(after.agentId)) : findAgent(tx, input.organizationId, current.agentId);
     checkUnitFitsAgent(agent, (after.unit as ExposureUnit | undefined) ?? current.unit, 'unit');
     tx.update(oelEntries)
       .set({ ...after, updatedAt: now.toISOString() })

@@ -182,7 +182,10 @@ export const PLANNER_SETTINGS = Object.freeze({ maxAdditional: 12, simulations: 
 /** The sample planner for a job (PLANNER_SETTINGS, the job's prior and seed), or the rule that refuses it. */
 export function plannerOf(job: BayesJob): { plan: SamplePlan; refusal: null } | { plan: null; refusal: string } {
   try {
-    return { plan: samplePlanner(job.values, { oel: job.oel, seed: job.seed, prior: priorChoice(job.prior ?? 'reference'), ...PLANNER_SETTINGS }), refusal: null };
+    return {
+      plan: samplePlanner(job.values, { oel: job.oel, seed: job.seed, prior: priorChoice(job.prior ?? 'reference'), ...PLANNER_SETTINGS }),
+      refusal: null,
+    };
   } catch (error) {
     if (error instanceof RangeError) return { plan: null, refusal: withoutFunctionName(error.message) };
     throw error;

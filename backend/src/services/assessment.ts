@@ -115,7 +115,12 @@ export function canonicalJson(value: unknown): string {
  * the order the engine receives them), the OEL and action level, and the settings. Result ids are left
  * out: the same measurements entered again give the same hash.
  */
-export function assessmentDataHash(input: { results: readonly AssessmentResult[]; oel: number; actionLevel: number | null; settings: AssessmentSettings }): string {
+export function assessmentDataHash(input: {
+  results: readonly AssessmentResult[];
+  oel: number;
+  actionLevel: number | null;
+  settings: AssessmentSettings;
+}): string {
   const document = {
     values: input.results.map((result) => ({ workerCode: result.workerCode, date: result.date, value: result.value, nonDetect: result.nonDetect })),
     oel: input.oel,
@@ -128,7 +133,9 @@ export function assessmentDataHash(input: { results: readonly AssessmentResult[]
 /** The organization's Bayesian threshold if its settings give a valid one, else the engine default (0.30). */
 function unacceptableThresholdOf(db: Db, organizationId: number): Pick<AssessmentSettings, 'unacceptableThreshold' | 'unacceptableThresholdSource'> {
   const row = db.select({ settings: organizations.settings }).from(organizations).where(eq(organizations.id, organizationId)).get();
-  const parsed = organizationSettings.shape.bayesUnacceptableThreshold.safeParse((row?.settings as Record<string, unknown> | undefined)?.bayesUnacceptableThreshold);
+  const parsed = organizationSettings.shape.bayesUnacceptableThreshold.safeParse(
+    (row?.settings as Record<string, unknown> | undefined)?.bayesUnacceptableThreshold,
+  );
   return parsed.success && parsed.data !== undefined
     ? { unacceptableThreshold: parsed.data, unacceptableThresholdSource: 'organization' }
     : { unacceptableThreshold: DEFAULT_BAYES_UNACCEPTABLE_THRESHOLD, unacceptableThresholdSource: 'default' };

@@ -15,10 +15,7 @@ export type Actor = Pick<User, 'id'> | null;
  * The fields of `changes` whose value differs from `current`, as `{ before, after }` for the
  * audit trail; arrays and objects are compared by their JSON.
  */
-export function changedFields<Row extends object>(
-  current: Row,
-  changes: Partial<Row>,
-): { before: Record<string, unknown>; after: Record<string, unknown> } {
+export function changedFields<Row extends object>(current: Row, changes: Partial<Row>): { before: Record<string, unknown>; after: Record<string, unknown> } {
   const before: Record<string, unknown> = {};
   const after: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(changes)) {
@@ -70,7 +67,12 @@ export function fieldError(field: string, message: string, part: 'body' | 'query
 
 /** A 400 about several fields at once. */
 export function fieldErrors(fields: Record<string, string>): BadRequest {
-  return new BadRequest(`Check the request body: ${Object.entries(fields).map(([key, message]) => `${key}: ${message}`).join('; ')}`, fields);
+  return new BadRequest(
+    `Check the request body: ${Object.entries(fields)
+      .map(([key, message]) => `${key}: ${message}`)
+      .join('; ')}`,
+    fields,
+  );
 }
 
 /** A table owned by an organization: an `id` and an `organization_id`. */

@@ -78,7 +78,15 @@ function reviewIntervalSetting(db: Tx, organizationId: number): number | undefin
   return parsed.success ? parsed.data : undefined;
 }
 
-async function assessmentFor(db: Db, clock: Clock, engine: AssessmentEngine, organizationId: number, groupId: number, exclude: readonly number[], prior: PriorName) {
+async function assessmentFor(
+  db: Db,
+  clock: Clock,
+  engine: AssessmentEngine,
+  organizationId: number,
+  groupId: number,
+  exclude: readonly number[],
+  prior: PriorName,
+) {
   try {
     return await getGroupAssessment(db, clock, engine, { organizationId, groupId, exclude: [...exclude].sort((a, b) => a - b), prior });
   } catch (error) {
@@ -180,7 +188,12 @@ export async function createDecisionDraft(
       entityType,
       entityId: row.id,
       action: 'drafted',
-      after: { exposureGroupId: input.groupId, category: draft.category ?? proposal.category, judgement: draft.judgement ?? proposal.judgement, exclusions: draft.exclusions },
+      after: {
+        exposureGroupId: input.groupId,
+        category: draft.category ?? proposal.category,
+        judgement: draft.judgement ?? proposal.judgement,
+        exclusions: draft.exclusions,
+      },
       at: now,
     });
     return row.id;
@@ -254,13 +267,26 @@ export function resubmitDecisionDraft(db: Db, clock: Clock, input: { organizatio
       .set({ status: 'draft', submittedAt: now.toISOString(), updatedAt: now.toISOString() })
       .where(eq(decisionRecords.id, row.id))
       .run();
-    audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType, entityId: row.id, action: 'resubmitted', before: { status: 'returned' }, after: { status: 'draft' }, at: now });
+    audit(tx, {
+      organizationId: input.organizationId,
+      actor: input.actor,
+      entityType,
+      entityId: row.id,
+      action: 'resubmitted',
+      before: { status: 'returned' },
+      after: { status: 'draft' },
+      at: now,
+    });
   });
   return getDecisionRecord(db, clock, input.organizationId, input.recordId);
 }
 
 /** An analyst returns a draft with a comment saying what must change. */
-export function returnDecisionDraft(db: Db, clock: Clock, input: { organizationId: number; recordId: number; actor: Actor; comment: string }): DecisionRecordView {
+export function returnDecisionDraft(
+  db: Db,
+  clock: Clock,
+  input: { organizationId: number; recordId: number; actor: Actor; comment: string },
+): DecisionRecordView {
   const now = clock.now();
   db.transaction((tx) => {
     const row = recordOrNotFound(tx, input.organizationId, input.recordId);
@@ -271,7 +297,17 @@ export function returnDecisionDraft(db: Db, clock: Clock, input: { organizationI
       .set({ status: 'returned', returnedByUserId: input.actor.id, returnedAt: now.toISOString(), returnComment: input.comment, updatedAt: now.toISOString() })
       .where(eq(decisionRecords.id, row.id))
       .run();
-    audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType, entityId: row.id, action: 'returned', reason: input.comment, before: { status: 'draft' }, after: { status: 'returned' }, at: now });
+    audit(tx, {
+      organizationId: input.organizationId,
+      actor: input.actor,
+      entityType,
+      entityId: row.id,
+      action: 'returned',
+      reason: input.comment,
+      before: { status: 'draft' },
+      after: { status: 'returned' },
+      at: now,
+    });
   });
   return getDecisionRecord(db, clock, input.organizationId, input.recordId);
 }
@@ -339,7 +375,15 @@ export async function approveDecisionDraft(
       .all();
     for (const old of previous) {
       tx.update(decisionRecords).set({ status: 'superseded', supersededAt: stamp, updatedAt: stamp }).where(eq(decisionRecords.id, old.id)).run();
-      audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType, entityId: old.id, action: 'superseded', after: { supersededBy: row.id }, at: now });
+      audit(tx, {
+        organizationId: input.organizationId,
+        actor: input.actor,
+        entityType,
+        entityId: old.id,
+        action: 'superseded',
+        after: { supersededBy: row.id },
+        at: now,
+      });
     }
     tx.update(decisionRecords)
       .set({
@@ -383,7 +427,9 @@ export function acknowledgeDecision(db: Db, clock: Clock, input: { organizationI
       .where(and(eq(decisionAcknowledgements.decisionRecordId, row.id), eq(decisionAcknowledgements.userId, input.actor.id)))
       .get();
     if (done) throw new Conflict(`You already acknowledged decision record ${row.id} on ${done.at.slice(0, 10)}`);
-    tx.insert(decisionAcknowledgements).values({ organizationId: input.organizationId, decisionRecordId: row.id, userId: input.actor.id, at: now.toISOString() }).run();
+    tx.insert(decisionAcknowledgements)
+      .values({ organizationId: input.organizationId, decisionRecordId: row.id, userId: input.actor.id, at: now.toISOString() })
+      .run();
     audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType, entityId: row.id, action: 'acknowledged', at: now });
   });
   return getDecisionRecord(db, clock, input.organizationId, input.recordId);
@@ -399,7 +445,15 @@ export function commentOnDecision(db: Db, clock: Clock, input: { organizationId:
       .values({ organizationId: input.organizationId, decisionRecordId: row.id, userId: input.actor.id, body: input.body, createdAt: now.toISOString() })
       .returning({ id: decisionComments.id })
       .get();
-    audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType, entityId: row.id, action: 'commented', after: { commentId: comment.id }, at: now });
+    audit(tx, {
+      organizationId: input.organizationId,
+      actor: input.actor,
+      entityType,
+      entityId: row.id,
+      action: 'commented',
+      after: { commentId: comment.id },
+      at: now,
+    });
   });
   return getDecisionRecord(db, clock, input.organizationId, input.recordId);
 }
@@ -511,7 +565,12 @@ export function getDecisionRecord(db: Tx, _clock: Clock, organizationId: number,
     groupDataVersion: group.dataVersion,
     supersededAt: record.supersededAt,
     acknowledgedBy,
-    comments: comments.map((comment) => ({ id: comment.id, author: { id: comment.authorId, name: comment.authorName }, body: comment.body, createdAt: comment.createdAt })),
+    comments: comments.map((comment) => ({
+      id: comment.id,
+      author: { id: comment.authorId, name: comment.authorName },
+      body: comment.body,
+      createdAt: comment.createdAt,
+    })),
     // The assessment's own cautions are kept as frozen; ours add what the record states, without repeating a sentence.
     cautions: record.figures
       ? [...decisionCautions, ...record.figures.cautions.filter((caution) => !decisionCautions.some((own) => own.startsWith(caution.replace(/\.$/, ''))))]

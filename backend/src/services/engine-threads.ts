@@ -18,13 +18,20 @@ export interface PoolRequest {
 }
 export type PoolReply = { id: number; ok: true; result: unknown } | { id: number; ok: false; message: string };
 
-const workerModule = new URL('./assessment-worker.ts', import.meta.url).href;
+/**
+ * Whether this code runs from the prebuilt command-line bundle (`dist/cli/*.mjs`, built by esbuild in the
+ * `assess` and `noise` scripts) rather than from TypeScript sources under tsx or vitest.
+ */
+const runsFromBundle = import.meta.url.endsWith('.mjs');
 
 /**
- * Start the statistics worker with `workerData`. The app runs TypeScript through tsx, so the worker first
- * registers tsx and then loads the TypeScript module (the same bootstrap serves tests under vitest).
+ * Start the statistics worker with `workerData`. From the bundle the worker is its sibling
+ * `assessment-worker.mjs` and starts at once; from sources (the server under tsx, tests under vitest) the
+ * worker first registers tsx and then loads the TypeScript module, which costs a few hundred milliseconds.
  */
 export function startEngineWorker(workerData: unknown, transferList: readonly TransferListItem[] = []): Worker {
+  if (runsFromBundle) return new Worker(new URL('./assessment-worker.mjs', import.meta.url), { workerData, transferList: [...transferList] });
+  const workerModule = new URL('./assessment-worker.ts', import.meta.url).href;
   const bootstrap = `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(workerModule)}); })`;
   return new Worker(bootstrap, { eval: true, workerData, transferList: [...transferList] });
 }

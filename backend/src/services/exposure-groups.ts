@@ -1,11 +1,6 @@
-import { and, count, eq, ne, sql } from 'drizzle-orm';
+import { and, count, eq, inArray, ne, sql } from 'drizzle-orm';
 import { agents, type Agent, type ExposureUnit } from '@schema/agents';
-import {
-  exposureGroups,
-  type ExposureGroup,
-  type ExposureGroupCreate,
-  type ExposureGroupUpdate,
-} from '@schema/exposure-groups';
+import { exposureGroups, type ExposureGroup, type ExposureGroupCreate, type ExposureGroupUpdate } from '@schema/exposure-groups';
 import type { ExposureGroupListQuery, ListPage } from '@schema/list-query';
 import { shiftResults } from '@schema/shift-results';
 import { sites } from '@schema/sites';
@@ -135,7 +130,15 @@ export function listExposureGroups(db: Db, clock: Clock, organizationId: number,
       .where(where)
       .get()?.total ?? 0;
   const { limit, offset } = pageWindow(query.page, query.pageSize);
-  const items = selectViews(db, today(clock), where)
+  // The page's ids first, then the member and result counts for those rows only: SQLite evaluates a
+  // correlated subquery of the select list for every row it sorts, so selecting the views directly
+  // counted results for every group of the organization on each page (slow for thousands of groups).
+  const pageIds = db
+    .select({ id: exposureGroups.id })
+    .from(exposureGroups)
+    .innerJoin(sites, eq(sites.id, exposureGroups.siteId))
+    .innerJoin(agents, eq(agents.id, exposureGroups.agentId))
+    .where(where)
     .orderBy(
       ...orderBy(
         query.sort,
@@ -155,7 +158,11 @@ export function listExposureGroups(db: Db, clock: Clock, organizationId: number,
     .limit(limit)
     .offset(offset)
     .all()
-    .map(toView);
+    .map((row) => row.id);
+  const views = new Map(
+    (pageIds.length === 0 ? [] : selectViews(db, today(clock), inArray(exposureGroups.id, pageIds)).all()).map((row) => [row.group.id, row] as const),
+  );
+  const items = pageIds.map((id) => toView(views.get(id)!));
   return pageOf(items, total, query.page, query.pageSize);
 }
 
@@ -233,13 +240,22 @@ function checkGroupNameFree(db: Tx, siteId: number, name: string, exceptId?: num
   if (clash) throw new Conflict(`The site already has an exposure group named "${name}" (group ${clash.id})`);
 }
 
-const auditedGroupFields = ['siteId', 'name', 'agentId', 'oelEntryId', 'oelValue', 'oelUnit', 'oelSource', 'oelAveragingTime', 'actionLevel', 'shiftHours', 'noiseCriteriaSet', 'extendedShiftAdjustment'] as const;
+const auditedGroupFields = [
+  'siteId',
+  'name',
+  'agentId',
+  'oelEntryId',
+  'oelValue',
+  'oelUnit',
+  'oelSource',
+  'oelAveragingTime',
+  'actionLevel',
+  'shiftHours',
+  'noiseCriteriaSet',
+  'extendedShiftAdjustment',
+] as const;
 
-export function createExposureGroup(
-  db: Db,
-  clock: Clock,
-  input: { organizationId: number; actor: Actor; group: ExposureGroupCreate },
-): ExposureGroupView {
+export function createExposureGroup(db: Db, clock: Clock, input: { organizationId: number; actor: Actor; group: ExposureGroupCreate }): ExposureGroupView {
   const now = clock.now();
   const stamp = now.toISOString();
   const id = db.transaction((tx) => {

@@ -1,13 +1,6 @@
 import { and, desc, eq, gt, isNull } from 'drizzle-orm';
 import type { InvitationCreate, InvitationAccept } from '@schema/auth';
-import {
-  invitations,
-  memberships,
-  organizations,
-  type Invitation,
-  type InvitationView,
-  type Organization,
-} from '@schema/organizations';
+import { invitations, memberships, organizations, type Invitation, type InvitationView, type Organization } from '@schema/organizations';
 import { users, type User } from '@schema/users';
 import type { Clock } from '../clock';
 import type { Db } from '../db/client';
@@ -47,14 +40,7 @@ export function createInvitation(
     const pending = tx
       .select()
       .from(invitations)
-      .where(
-        and(
-          eq(invitations.organizationId, organization.id),
-          eq(invitations.email, email),
-          isNull(invitations.acceptedAt),
-          isNull(invitations.revokedAt),
-        ),
-      )
+      .where(and(eq(invitations.organizationId, organization.id), eq(invitations.email, email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
       .all();
     for (const old of pending) {
       tx.update(invitations).set({ revokedAt: now.toISOString() }).where(eq(invitations.id, old.id)).run();
@@ -131,23 +117,13 @@ export function viewOf(invitation: Invitation, invitedBy: string, now: Date): In
 }
 
 /** Revokes a pending invitation of this organization. 404 for unknown/other organization's/revoked; 409 if accepted. */
-export function revokeInvitation(
-  db: Db,
-  clock: Clock,
-  input: { organizationId: number; invitationId: number; actor: User },
-): void {
+export function revokeInvitation(db: Db, clock: Clock, input: { organizationId: number; invitationId: number; actor: User }): void {
   const now = clock.now();
   db.transaction((tx) => {
     const invitation = tx
       .select()
       .from(invitations)
-      .where(
-        and(
-          eq(invitations.id, input.invitationId),
-          eq(invitations.organizationId, input.organizationId),
-          isNull(invitations.revokedAt),
-        ),
-      )
+      .where(and(eq(invitations.id, input.invitationId), eq(invitations.organizationId, input.organizationId), isNull(invitations.revokedAt)))
       .get();
     if (!invitation) throw new NotFound(`No invitation ${input.invitationId} in this organization`);
     if (invitation.acceptedAt) throw new Conflict('This invitation has already been accepted; change the membership instead');
@@ -166,11 +142,7 @@ export function revokeInvitation(
 }
 
 /** The open invitation a link token belongs to (not accepted, not revoked, not expired), with its organization. */
-export function findOpenInvitation(
-  db: Db,
-  clock: Clock,
-  token: string,
-): { invitation: Invitation; organization: Organization } | undefined {
+export function findOpenInvitation(db: Db, clock: Clock, token: string): { invitation: Invitation; organization: Organization } | undefined {
   return db
     .select({ invitation: invitations, organization: organizations })
     .from(invitations)
@@ -214,11 +186,7 @@ export async function acceptInvitation(db: Db, clock: Clock, token: string, inpu
     if (claimed.changes !== 1) throw gone();
     const user =
       existing ??
-      tx
-        .insert(users)
-        .values({ email: invitation.email, name: input.name, passwordHash: passwordHash!, createdAt: stamp, updatedAt: stamp })
-        .returning()
-        .get();
+      tx.insert(users).values({ email: invitation.email, name: input.name, passwordHash: passwordHash!, createdAt: stamp, updatedAt: stamp }).returning().get();
     tx.update(invitations).set({ acceptedByUserId: user.id }).where(eq(invitations.id, invitation.id)).run();
     const member = tx
       .select()
@@ -227,12 +195,7 @@ export async function acceptInvitation(db: Db, clock: Clock, token: string, inpu
       .get();
     if (member?.active) throw new Conflict('You are already a member of this organization');
     const membership = member
-      ? tx
-          .update(memberships)
-          .set({ role: invitation.role, active: true, updatedAt: stamp })
-          .where(eq(memberships.id, member.id))
-          .returning()
-          .get()
+      ? tx.update(memberships).set({ role: invitation.role, active: true, updatedAt: stamp }).where(eq(memberships.id, member.id)).returning().get()
       : tx
           .insert(memberships)
           .values({ organizationId: invitation.organizationId, userId: user.id, role: invitation.role, createdAt: stamp, updatedAt: stamp })

@@ -1,11 +1,5 @@
 import Papa from 'papaparse';
-import {
-  labImportFields,
-  labImportMaximumRows,
-  type LabImportField,
-  type LabImportPreview,
-  type LabImportProblem,
-} from '@schema/lab-imports';
+import { labImportFields, labImportMaximumRows, type LabImportField, type LabImportPreview, type LabImportProblem } from '@schema/lab-imports';
 import { BadRequest } from '../errors';
 
 /*
@@ -66,9 +60,12 @@ export function parseLabFile(text: string): LabFile {
   const parsed = Papa.parse<string[]>(text, { delimiter: '', delimitersToGuess: otherDelimiters, skipEmptyLines: false, header: false });
   const problems: LabImportProblem[] = [];
   for (const error of parsed.errors) {
-    if (error.type === 'Quotes') problems.push({ row: (error.row ?? 0) + 1, column: null, message: `a quoted field is not closed or has a stray quote (${error.message})` });
+    if (error.type === 'Quotes')
+      problems.push({ row: (error.row ?? 0) + 1, column: null, message: `a quoted field is not closed or has a stray quote (${error.message})` });
   }
-  const records = parsed.data.map((values, index) => ({ row: index + 1, values })).filter((record) => !(record.values.length === 1 && record.values[0].trim() === ''));
+  const records = parsed.data
+    .map((values, index) => ({ row: index + 1, values }))
+    .filter((record) => !(record.values.length === 1 && record.values[0].trim() === ''));
   if (records.length === 0) throw importRejected('The file is empty', [{ row: null, column: null, message: 'no header row was found' }]);
   const delimiter = parsed.meta.delimiter;
   const [headerRecord, ...dataRecords] = records;
@@ -86,7 +83,12 @@ export function parseLabFile(text: string): LabFile {
   const seen = new Map<string, number>();
   header.forEach((name, index) => {
     if (name === '') problems.push({ row: headerRecord.row, column: `#${index + 1}`, message: 'the header is blank: name every column' });
-    else if (seen.has(name.toLowerCase())) problems.push({ row: headerRecord.row, column: name, message: `the column name appears twice (columns ${seen.get(name.toLowerCase())! + 1} and ${index + 1})` });
+    else if (seen.has(name.toLowerCase()))
+      problems.push({
+        row: headerRecord.row,
+        column: name,
+        message: `the column name appears twice (columns ${seen.get(name.toLowerCase())! + 1} and ${index + 1})`,
+      });
     else seen.set(name.toLowerCase(), index);
   });
   if (dataRecords.length === 0) problems.push({ row: null, column: null, message: 'the file has a header but no data rows' });

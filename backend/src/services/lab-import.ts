@@ -25,7 +25,8 @@ import { isCalendarDate, latestPossibleDate } from './dates';
 import { decodeLabFile, importRejected, parseLabFile, previewOf, type LabFile } from './lab-file';
 import { pageOf, pageWindow, searchCondition } from './list';
 import { sampleMinutes } from './sample-times';
-import { getShiftResult, insertShiftResult, type ShiftResultView } from './shift-results';
+import { touchGroupResults } from './exposure-groups';
+import { getShiftResultsOfImport, insertShiftResult, type ShiftResultView } from './shift-results';
 import { conversionBetween, parseUnit } from './units';
 import type { NameAccess } from './workers';
 
@@ -310,10 +311,13 @@ function readRows(file: LabFile, commit: LabImportCommit, lookups: Lookups, late
     if (indexOf.has('group')) {
       const text = cell('group');
       if (text !== '') {
-        const matches = /^\d+$/.test(text) ? [lookups.groupsById.get(Number(text))].filter((item) => item !== undefined) : (lookups.groupsByName.get(text.toLowerCase()) ?? []);
+        const matches = /^\d+$/.test(text)
+          ? [lookups.groupsById.get(Number(text))].filter((item) => item !== undefined)
+          : (lookups.groupsByName.get(text.toLowerCase()) ?? []);
         group = undefined;
         if (matches.length === 0) problem('group', `no exposure group "${text}" in this organization`);
-        else if (matches.length > 1) problem('group', `"${text}" names ${matches.length} groups (ids ${matches.map((item) => item.id).join(', ')}): use the group id`);
+        else if (matches.length > 1)
+          problem('group', `"${text}" names ${matches.length} groups (ids ${matches.map((item) => item.id).join(', ')}): use the group id`);
         else if (matches[0].archived) problem('group', `exposure group "${matches[0].name}" is archived`);
         else group = matches[0];
       } else if (!defaultGroup) problem('group', 'the exposure group is empty');
@@ -331,7 +335,8 @@ function readRows(file: LabFile, commit: LabImportCommit, lookups: Lookups, late
     if (worker && group && date && date <= latestDate) {
       const periods = lookups.memberships.get(`${worker.id}|${group.id}`) ?? [];
       if (!periods.some((period) => period.fromDate <= date && (period.toDate === null || period.toDate >= date))) {
-        const words = periods.length === 0 ? 'never a member' : `member ${periods.map((period) => `${period.fromDate} – ${period.toDate ?? 'open'}`).join(', ')}`;
+        const words =
+          periods.length === 0 ? 'never a member' : `member ${periods.map((period) => `${period.fromDate} – ${period.toDate ?? 'open'}`).join(', ')}`;
         problem('workerCode', `${worker.code} is not a member of "${group.name}" on ${date} (${words})`);
       }
     }
@@ -445,7 +450,12 @@ function formatNumber(value: number): string {
 }
 
 /** Combines one worker-shift's samples into its result, or adds problems. */
-function combineShift(parts: SampleRow[], commit: LabImportCommit, problems: LabImportProblem[], needsAssumption: { count: number }): PlannedShiftResult | undefined {
+function combineShift(
+  parts: SampleRow[],
+  commit: LabImportCommit,
+  problems: LabImportProblem[],
+  needsAssumption: { count: number },
+): PlannedShiftResult | undefined {
   const first = parts[0];
   const { group, worker, agent, date } = first;
   const unitLabel = exposureUnitLabels[group.oelUnit];
@@ -489,7 +499,8 @@ function combineShift(parts: SampleRow[], commit: LabImportCommit, problems: Lab
     const statement =
       (first.nonDetect
         ? `One sample, below its detection limit of ${formatNumber(first.value)} ${unitLabel}: the shift result is a non-detect.`
-        : `One sample taken as the shift result${first.minutes === null ? ' (the file gives no sample duration: the lab’s figure is taken to cover the shift)' : ', covering the whole shift'}.`) + conversionWords;
+        : `One sample taken as the shift result${first.minutes === null ? ' (the file gives no sample duration: the lab’s figure is taken to cover the shift)' : ', covering the whole shift'}.`) +
+      conversionWords;
     return {
       ...common,
       value: first.value,
@@ -520,14 +531,22 @@ function combineShift(parts: SampleRow[], commit: LabImportCommit, problems: Lab
   const missing = parts.filter((part) => part.minutes === null);
   if (missing.length > 0) {
     for (const part of missing)
-      problems.push({ row: part.row, column: null, message: `${shiftWords} has ${parts.length} samples: each needs its minutes or its start and end times to be combined into a shift TWA` });
+      problems.push({
+        row: part.row,
+        column: null,
+        message: `${shiftWords} has ${parts.length} samples: each needs its minutes or its start and end times to be combined into a shift TWA`,
+      });
     return undefined;
   }
   for (let index = 1; index < starts.length; index++) {
     const previous = starts[index - 1];
     const current = starts[index];
     if (current.startMinute! < previous.endMinute!)
-      problems.push({ row: current.row, column: null, message: `this sample (${current.startTime}–${current.endTime}) overlaps the one in row ${previous.row} (${previous.startTime}–${previous.endTime})` });
+      problems.push({
+        row: current.row,
+        column: null,
+        message: `this sample (${current.startTime}–${current.endTime}) overlaps the one in row ${previous.row} (${previous.startTime}–${previous.endTime})`,
+      });
   }
   if (!commit.unsampledTime) {
     needsAssumption.count += 1;
@@ -563,7 +582,9 @@ function combineShift(parts: SampleRow[], commit: LabImportCommit, problems: Lab
   if (twa.nonDetect) nonDetectWords = ' Every sample was below its detection limit: the shift result is a non-detect below the TWA of the limits.';
   else if (twa.nonDetectPeriods > 0) {
     nonDetectWords = ` ${twa.nonDetectPeriods} of ${parts.length} samples were below detection and are counted at their detection limits: the result is an upper bound (with them at zero it would be ${formatNumber(twa.lowerBound)} ${unitLabel}).`;
-    flags.push(`Upper bound: ${twa.nonDetectPeriods} non-detect sample(s) counted at the detection limit; lower bound ${formatNumber(twa.lowerBound)} ${unitLabel}.`);
+    flags.push(
+      `Upper bound: ${twa.nonDetectPeriods} non-detect sample(s) counted at the detection limit; lower bound ${formatNumber(twa.lowerBound)} ${unitLabel}.`,
+    );
   }
   const statement = `Shift TWA from ${parts.length} sample${parts.length === 1 ? '' : 's'} (${formatNumber(twa.sampledMinutes)} min): ${formula}; ${assumptionWords}.${nonDetectWords}${conversionWords} Source: ${twaSource}.`;
   return {
@@ -619,7 +640,11 @@ function planImport(db: Tx, clock: Clock, batch: ImportBatch, commit: LabImportC
     if (stored) {
       const duplicates = parts.filter((part) => part.sampleId !== null && stored.sampleIds.has(part.sampleId.toLowerCase()));
       for (const part of duplicates)
-        problems.push({ row: part.row, column: null, message: `duplicate of result ${stored.id}, already stored (same worker, date, group, agent and sample id "${part.sampleId}")` });
+        problems.push({
+          row: part.row,
+          column: null,
+          message: `duplicate of result ${stored.id}, already stored (same worker, date, group, agent and sample id "${part.sampleId}")`,
+        });
       if (duplicates.length === 0)
         problems.push({
           row: parts[0].row,
@@ -646,7 +671,8 @@ function planImport(db: Tx, clock: Clock, batch: ImportBatch, commit: LabImportC
 
 function uploadedBatch(db: Tx, organizationId: number, batchId: number): ImportBatch {
   const batch = findBatch(db, organizationId, batchId);
-  if (batch.status === 'committed') throw new Conflict(`Lab import ${batch.id} was already committed on ${batch.committedAt}: upload the file again to import it once more`);
+  if (batch.status === 'committed')
+    throw new Conflict(`Lab import ${batch.id} was already committed on ${batch.committedAt}: upload the file again to import it once more`);
   return batch;
 }
 
@@ -676,7 +702,8 @@ export function checkLabImport(db: Db, clock: Clock, input: { organizationId: nu
 
 /**
  * Commits the batch: every planned result is stored in one transaction (all or nothing), each
- * audited and each moving its group's data version; the batch records the mapping and the count.
+ * audited; each group's data version moves once; the batch records the mapping and the count.
+ * The answer lists the stored results, read back in one query.
  */
 export function commitLabImport(
   db: Db,
@@ -685,34 +712,49 @@ export function commitLabImport(
   access: NameAccess,
 ): { batch: ImportBatchSummary; results: ShiftResultView[] } {
   const now = clock.now();
-  const ids = db.transaction((tx) => {
+  db.transaction((tx) => {
     const batch = uploadedBatch(tx, input.organizationId, input.batchId);
     const planned = planImport(tx, clock, batch, input.commit);
     const created = planned.map(
       (result) =>
-        insertShiftResult(tx, now, input.actor, {
-          organizationId: input.organizationId,
-          group: result.group,
-          worker: result.worker,
-          agent: result.agent,
-          date: result.date,
-          value: result.value,
-          nonDetect: result.nonDetect,
-          detectionLimit: result.detectionLimit,
-          source: 'lab-import',
-          sampleId: result.sampleId,
-          lab: result.lab,
-          startTime: result.startTime,
-          endTime: result.endTime,
-          sampledMinutes: result.sampledMinutes,
-          reportedValue: result.reportedValue,
-          reportedUnit: result.reportedUnit,
-          details: result.details,
-          importBatchId: batch.id,
-        }).id,
+        insertShiftResult(
+          tx,
+          now,
+          input.actor,
+          {
+            organizationId: input.organizationId,
+            group: result.group,
+            worker: result.worker,
+            agent: result.agent,
+            date: result.date,
+            value: result.value,
+            nonDetect: result.nonDetect,
+            detectionLimit: result.detectionLimit,
+            source: 'lab-import',
+            sampleId: result.sampleId,
+            lab: result.lab,
+            startTime: result.startTime,
+            endTime: result.endTime,
+            sampledMinutes: result.sampledMinutes,
+            reportedValue: result.reportedValue,
+            reportedUnit: result.reportedUnit,
+            details: result.details,
+            importBatchId: batch.id,
+          },
+          { touchGroup: false },
+        ).id,
     );
+    for (const groupId of new Set(planned.map((result) => result.group.id))) touchGroupResults(tx, groupId, now);
+
     tx.update(importBatches)
-      .set({ status: 'committed', mapping: input.commit, resultCount: created.length, committedByUserId: input.actor?.id ?? null, committedAt: now.toISOString(), updatedAt: now.toISOString() })
+      .set({
+        status: 'committed',
+        mapping: input.commit,
+        resultCount: created.length,
+        committedByUserId: input.actor?.id ?? null,
+        committedAt: now.toISOString(),
+        updatedAt: now.toISOString(),
+      })
       .where(eq(importBatches.id, batch.id))
       .run();
     audit(tx, {
@@ -725,11 +767,9 @@ export function commitLabImport(
       after: { status: 'committed', sha256: batch.sha256, resultCount: created.length, unsampledTime: input.commit.unsampledTime ?? null },
       at: now,
     });
-    return created;
   });
   return {
     batch: summaryOf(findBatch(db, input.organizationId, input.batchId)),
-    results: ids.map((id) => getShiftResult(db, input.organizationId, id, access)),
+    results: getShiftResultsOfImport(db, input.organizationId, input.batchId, access),
   };
 }
-

@@ -8,11 +8,7 @@ import type { ListPage } from '@schema/list-query';
  */
 
 /** `name` → ascending, `-name` → descending, on the column the field maps to; ties broken by id. */
-export function orderBy<Field extends string>(
-  sort: Field | `-${Field}`,
-  columns: Record<Field, AnyColumn | SQL>,
-  tieBreaker: AnyColumn,
-): SQL[] {
+export function orderBy<Field extends string>(sort: Field | `-${Field}`, columns: Record<Field, AnyColumn | SQL>, tieBreaker: AnyColumn): SQL[] {
   const descending = sort.startsWith('-');
   const field = (descending ? sort.slice(1) : sort) as Field;
   const column = columns[field];

@@ -68,15 +68,10 @@ export function updateMember(
         )
         .get();
       if (!others || others.total === 0) {
-        throw new Conflict(
-          `${current.name} is the last active admin of this organization: make someone else admin first`,
-        );
+        throw new Conflict(`${current.name} is the last active admin of this organization: make someone else admin first`);
       }
     }
-    tx.update(memberships)
-      .set({ role, active, updatedAt: now.toISOString() })
-      .where(eq(memberships.id, current.id))
-      .run();
+    tx.update(memberships).set({ role, active, updatedAt: now.toISOString() }).where(eq(memberships.id, current.id)).run();
     recordAudit(tx, {
       organizationId: input.organizationId,
       actorUserId: input.actor.id,

@@ -20,12 +20,7 @@ import { organizations, organizationSettings } from '@schema/organizations';
 import { shiftResults, type ShiftResultDetails } from '@schema/shift-results';
 import { users } from '@schema/users';
 import { workers } from '@schema/workers';
-import {
-  analyzePreparedNoiseLog,
-  prepareNoiseAnalysis,
-  type NoiseAnalysis,
-  type PreparedNoiseAnalysis,
-} from '@stats/noise-analyze';
+import { analyzePreparedNoiseLog, prepareNoiseAnalysis, type NoiseAnalysis, type PreparedNoiseAnalysis } from '@stats/noise-analyze';
 import { noiseLogFromChannels, type NoiseLog } from '@stats/noise-log';
 import { decodeNoiseLogBytes, NoiseLogError, parseNoiseLog } from '@stats/noise-log-parse';
 import { resolveNoiseSettings, type NoiseSettings } from '@stats/noise-settings';
@@ -34,6 +29,7 @@ import type { Db } from '../db/client';
 import { BadRequest, Conflict, NotFound } from '../errors';
 import { audit, fieldError, ownedOrNotFound, type Actor, type Tx } from './changes';
 import { exposureGroupFromBody, touchGroupResults } from './exposure-groups';
+import { saveOrganizationSettings } from './organization-settings';
 import { insertShiftResult } from './shift-results';
 import { isMemberOn, periodsInWords, workerFromBody } from './workers';
 
@@ -74,24 +70,12 @@ export function toStatsSettings(values: NoiseSettingsValues): NoiseSettings {
 
 /** Saves the organization's noise settings (audited). Logs already uploaded keep the settings they were checked with. */
 export function updateNoiseSettings(db: Db, clock: Clock, input: { organizationId: number; actor: Actor; values: NoiseSettingsValues }): NoiseSettingsValues {
-  const now = clock.now();
-  db.transaction((tx) => {
-    const row = tx.select({ settings: organizations.settings }).from(organizations).where(eq(organizations.id, input.organizationId)).get();
-    const before = organizationNoiseSettings(tx, input.organizationId);
-    tx.update(organizations)
-      .set({ settings: { ...(row?.settings ?? {}), ...input.values }, updatedAt: now.toISOString() })
-      .where(eq(organizations.id, input.organizationId))
-      .run();
-    audit(tx, {
-      organizationId: input.organizationId,
-      actor: input.actor,
-      entityType: 'organization',
-      entityId: input.organizationId,
-      action: 'noise_settings_changed',
-      before: { ...before },
-      after: { ...input.values },
-      at: now,
-    });
+  saveOrganizationSettings(db, clock, {
+    organizationId: input.organizationId,
+    actor: input.actor,
+    values: input.values,
+    action: 'noise_settings_changed',
+    before: (tx) => organizationNoiseSettings(tx, input.organizationId),
   });
   return organizationNoiseSettings(db, input.organizationId);
 }
@@ -100,14 +84,21 @@ export function updateNoiseSettings(db: Db, clock: Clock, input: { organizationI
 
 /** A file problem as a 400 naming the row and column (nothing is stored). */
 function fileError(error: NoiseLogError, fileName: string): BadRequest {
-  return new BadRequest(`${fileName}: ${error.message}; nothing was stored`, { file: error.message }, {
-    problems: [{ row: error.row, column: error.column ?? error.metadataKey, message: error.detail }],
-  });
+  return new BadRequest(
+    `${fileName}: ${error.message}; nothing was stored`,
+    { file: error.message },
+    {
+      problems: [{ row: error.row, column: error.column ?? error.metadataKey, message: error.detail }],
+    },
+  );
 }
 
 /** True when the first non-blank line is our `# noise-log:` marker (BOM allowed). */
 export function looksLikeNoiseLogV1(text: string): boolean {
-  const first = text.replace(/^\ufeff/, '').split('\n').find((line) => line.trim() !== '');
+  const first = text
+    .replace(/^\ufeff/, '')
+    .split('\n')
+    .find((line) => line.trim() !== '');
   return first !== undefined && /^#\s*noise-log\s*:/i.test(first.trim());
 }
 
@@ -141,7 +132,7 @@ const timeFactor = { s: 1, ms: 0.001, min: 60 } as const;
 export function readMappedNoiseCsv(text: string, mapping: NoiseColumnMapping): NoiseLog {
   const parsed = Papa.parse<string[]>(text.replace(/^\ufeff/, ''), { skipEmptyLines: false });
   const rows = parsed.data;
-  let headerIndex = rows.findIndex((row) => row.some((cell) => cell.trim() !== '') && !row[0].trim().startsWith('#'));
+  const headerIndex = rows.findIndex((row) => row.some((cell) => cell.trim() !== '') && !row[0].trim().startsWith('#'));
   if (headerIndex < 0) throw new NoiseLogError('the file is empty');
   const headers = rows[headerIndex].map((cell) => cell.trim());
   const find = (name: string | null | undefined, role: string): number | null => {
@@ -183,7 +174,12 @@ export function readMappedNoiseCsv(text: string, mapping: NoiseColumnMapping): N
   const read = (entry: { row: number; cells: string[] }, column: number, name: string): number => {
     const text = (entry.cells[column] ?? '').trim();
     if (!/^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/.test(text)) {
-      const why = text === '' ? 'empty value' : /^[+-]?\d+,\d+$/.test(text) ? `decimal comma in "${text}": write decimals with a point` : `expected a number, got "${text}"`;
+      const why =
+        text === ''
+          ? 'empty value'
+          : /^[+-]?\d+,\d+$/.test(text)
+            ? `decimal comma in "${text}": write decimals with a point`
+            : `expected a number, got "${text}"`;
       throw new NoiseLogError(why, { row: entry.row, column: name });
     }
     return Number(text);
@@ -323,7 +319,10 @@ function activeMasks(db: Tx, logId: number): NoiseMask[] {
 
 function analysisOf(db: Tx, row: NoiseLogRow): { analysis: NoiseAnalysis; masks: NoiseMask[] } {
   const masks = activeMasks(db, row.id);
-  const analysis = analyzePreparedNoiseLog(preparedOf(db, row), masks.map((mask) => ({ startS: mask.startS, endS: mask.endS })));
+  const analysis = analyzePreparedNoiseLog(
+    preparedOf(db, row),
+    masks.map((mask) => ({ startS: mask.startS, endS: mask.endS })),
+  );
   return { analysis, masks };
 }
 
@@ -352,7 +351,11 @@ function noiseGroupOrError(tx: Tx, organizationId: number, groupId: number): Exp
  * SHA-256, the channels, the as-logged summary and the proposed masks for knocks. A bad file is a
  * 400 naming the row and column, and nothing is stored.
  */
-export function uploadNoiseLog(db: Db, clock: Clock, input: NoiseUploadInput): { id: number; stillStretchOverLimit: boolean; longestStillMinutes: number | null } {
+export function uploadNoiseLog(
+  db: Db,
+  clock: Clock,
+  input: NoiseUploadInput,
+): { id: number; stillStretchOverLimit: boolean; longestStillMinutes: number | null } {
   const now = clock.now();
   let log: NoiseLog;
   try {
@@ -360,7 +363,10 @@ export function uploadNoiseLog(db: Db, clock: Clock, input: NoiseUploadInput): {
     if (input.mapping) log = readMappedNoiseCsv(text, input.mapping);
     else if (looksLikeNoiseLogV1(text)) log = parseNoiseLog(text);
     else {
-      throw new NoiseLogError('this is not a noise log in our format version 1 (the first line should be "# noise-log: 1"): map its columns to read it as any CSV', { row: 1 });
+      throw new NoiseLogError(
+        'this is not a noise log in our format version 1 (the first line should be "# noise-log: 1"): map its columns to read it as any CSV',
+        { row: 1 },
+      );
     }
   } catch (error) {
     if (error instanceof NoiseLogError) throw fileError(error, input.fileName);
@@ -410,7 +416,9 @@ export function uploadNoiseLog(db: Db, clock: Clock, input: NoiseUploadInput): {
       .returning({ id: noiseLogs.id })
       .get();
     for (const [channel, values] of Object.entries(channelsOf(log)) as [NoiseChannelName, Float64Array | Uint8Array][]) {
-      tx.insert(noiseLogChannels).values({ noiseLogId: row.id, channel, data: channelBytes(values) }).run();
+      tx.insert(noiseLogChannels)
+        .values({ noiseLogId: row.id, channel, data: channelBytes(values) })
+        .run();
     }
     for (const mask of analysis.proposedMasks) {
       tx.insert(noiseMasks)
@@ -427,7 +435,8 @@ export function uploadNoiseLog(db: Db, clock: Clock, input: NoiseUploadInput): {
         })
         .run();
     }
-    if (input.mapping && input.presetName) saveMappingPreset(tx, now, { organizationId: input.organizationId, actor: input.actor, name: input.presetName, mapping: input.mapping });
+    if (input.mapping && input.presetName)
+      saveMappingPreset(tx, now, { organizationId: input.organizationId, actor: input.actor, name: input.presetName, mapping: input.mapping });
     audit(tx, {
       organizationId: input.organizationId,
       actor: input.actor,
@@ -515,7 +524,13 @@ export function getNoiseLog(db: Tx, organizationId: number, logId: number) {
     .where(eq(noiseLogs.id, row.id))
     .get()!;
   const group = db.select().from(exposureGroups).where(eq(exposureGroups.id, row.exposureGroupId)).get()!;
-  const authors = new Map(db.select({ id: users.id, name: users.name }).from(users).all().map((user) => [user.id, user.name]));
+  const authors = new Map(
+    db
+      .select({ id: users.id, name: users.name })
+      .from(users)
+      .all()
+      .map((user) => [user.id, user.name]),
+  );
   const { details } = analysis;
   return {
     ...listed,
@@ -524,7 +539,14 @@ export function getNoiseLog(db: Tx, organizationId: number, logId: number) {
     settings: row.settings,
     intervalCount: row.intervalCount,
     acceptedAt: row.acceptedAt,
-    group: { id: group.id, name: group.name, noiseCriteriaSet: group.noiseCriteriaSet, oelUnit: group.oelUnit, oelValue: group.oelValue, dataVersion: group.dataVersion },
+    group: {
+      id: group.id,
+      name: group.name,
+      noiseCriteriaSet: group.noiseCriteriaSet,
+      oelUnit: group.oelUnit,
+      oelValue: group.oelValue,
+      dataVersion: group.dataVersion,
+    },
     figures: {
       runSeconds: analysis.runSeconds,
       intervalSeconds: analysis.intervalSeconds,
@@ -687,25 +709,62 @@ export function changeNoiseMask(db: Db, clock: Clock, input: { organizationId: n
         })
         .returning()
         .get();
-      audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType: 'noise_mask', entityId: mask.id, action: 'created', reason: change.reason, after: { noiseLogId: row.id, startS: mask.startS, endS: mask.endS }, at: now });
+      audit(tx, {
+        organizationId: input.organizationId,
+        actor: input.actor,
+        entityType: 'noise_mask',
+        entityId: mask.id,
+        action: 'created',
+        reason: change.reason,
+        after: { noiseLogId: row.id, startS: mask.startS, endS: mask.endS },
+        at: now,
+      });
     } else {
-      const mask = tx.select().from(noiseMasks).where(and(eq(noiseMasks.id, change.maskId), eq(noiseMasks.noiseLogId, row.id))).get();
+      const mask = tx
+        .select()
+        .from(noiseMasks)
+        .where(and(eq(noiseMasks.id, change.maskId), eq(noiseMasks.noiseLogId, row.id)))
+        .get();
       if (!mask) throw new NotFound(`No mask ${change.maskId} on noise log ${row.id}`);
       if (mask.status === 'removed') throw new Conflict(`Mask ${mask.id} was removed on ${mask.removedAt}; add a new mask instead`);
       if (change.kind === 'change') {
         checkSpan(row, log, change.startS, change.endS);
         tx.update(noiseMasks).set({ startS: change.startS, endS: change.endS, updatedAt: stamp }).where(eq(noiseMasks.id, mask.id)).run();
-        audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType: 'noise_mask', entityId: mask.id, action: 'changed', reason: change.reason, before: { startS: mask.startS, endS: mask.endS }, after: { startS: change.startS, endS: change.endS }, at: now });
+        audit(tx, {
+          organizationId: input.organizationId,
+          actor: input.actor,
+          entityType: 'noise_mask',
+          entityId: mask.id,
+          action: 'changed',
+          reason: change.reason,
+          before: { startS: mask.startS, endS: mask.endS },
+          after: { startS: change.startS, endS: change.endS },
+          at: now,
+        });
       } else {
-        tx.update(noiseMasks).set({ status: 'removed', removedByUserId: input.actor?.id ?? null, removedAt: stamp, updatedAt: stamp }).where(eq(noiseMasks.id, mask.id)).run();
-        audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType: 'noise_mask', entityId: mask.id, action: 'removed', reason: change.reason, before: { status: 'active', startS: mask.startS, endS: mask.endS }, after: { status: 'removed' }, at: now });
+        tx.update(noiseMasks)
+          .set({ status: 'removed', removedByUserId: input.actor?.id ?? null, removedAt: stamp, updatedAt: stamp })
+          .where(eq(noiseMasks.id, mask.id))
+          .run();
+        audit(tx, {
+          organizationId: input.organizationId,
+          actor: input.actor,
+          entityType: 'noise_mask',
+          entityId: mask.id,
+          action: 'removed',
+          reason: change.reason,
+          before: { status: 'active', startS: mask.startS, endS: mask.endS },
+          after: { status: 'removed' },
+          at: now,
+        });
       }
     }
     tx.update(noiseLogs)
       .set({ status: row.status === 'accepted' ? 'accepted' : 'reviewed', updatedAt: stamp })
       .where(eq(noiseLogs.id, row.id))
       .run();
-    if (row.status === 'accepted' && row.shiftResultId !== null) updateLinkedResult(tx, now, input.actor, row, 'reason' in change ? change.reason : 'mask changed');
+    if (row.status === 'accepted' && row.shiftResultId !== null)
+      updateLinkedResult(tx, now, input.actor, row, 'reason' in change ? change.reason : 'mask changed');
   });
   return getNoiseLog(db, input.organizationId, input.logId);
 }
@@ -734,7 +793,8 @@ function resultFigures(row: NoiseLogRow, group: ExposureGroup, analysis: NoiseAn
   let value: number | null;
   let words: string;
   if (group.oelUnit === 'dose-percent') {
-    if (set === null) throw new Conflict(`"${group.name}" is judged with ISO 9612 (LAeq, LEX,8h), which has no dose: set the group's criteria set or its OEL unit to dBA`);
+    if (set === null)
+      throw new Conflict(`"${group.name}" is judged with ISO 9612 (LAeq, LEX,8h), which has no dose: set the group's criteria set or its OEL unit to dBA`);
     value = set.dose;
     words = `reviewed dose ${value === null ? '—' : value.toPrecision(4)} % (${criteria})`;
   } else if (group.oelUnit === 'dBA') {
@@ -744,7 +804,9 @@ function resultFigures(row: NoiseLogRow, group: ExposureGroup, analysis: NoiseAn
     throw new Conflict(`"${group.name}" has its OEL in ${group.oelUnit}: a noise log gives a dose in % or a level in dBA`);
   }
   if (value === null || !(value > 0)) {
-    throw new Conflict(`The reviewed figure for "${group.name}" is ${value === null ? 'not available (every interval is masked)' : '0 (no interval reaches the threshold)'}: it cannot be stored as a shift result`);
+    throw new Conflict(
+      `The reviewed figure for "${group.name}" is ${value === null ? 'not available (every interval is masked)' : '0 (no interval reaches the threshold)'}: it cannot be stored as a shift result`,
+    );
   }
   const noise = {
     noiseLogId: row.id,
@@ -758,7 +820,8 @@ function resultFigures(row: NoiseLogRow, group: ExposureGroup, analysis: NoiseAn
   };
   const statement = `From noise log ${row.id} (${row.fileName}, SHA-256 ${row.sha256.slice(0, 12)}…): ${words}, with ${Math.round(analysis.maskedSeconds)} s of ${Math.round(analysis.runSeconds)} s masked; the masked time is given the mean of the unmasked time. Interval levels only approximate a dosimeter's slow-weighted integration for a 5 dB exchange rate or a threshold (docs/decisions/004).`;
   const flags: string[] = [];
-  if (analysis.details.calibration.exceedsLimit) flags.push(`Calibration drift ${analysis.calibrationDriftDb?.toFixed(2)} dB exceeds the ${analysis.details.calibration.limitDb} dB limit`);
+  if (analysis.details.calibration.exceedsLimit)
+    flags.push(`Calibration drift ${analysis.calibrationDriftDb?.toFixed(2)} dB exceeds the ${analysis.details.calibration.limitDb} dB limit`);
   if ((analysis.stillStretches?.length ?? 0) > 0) flags.push('The wear check found a still stretch: the meter may not have been worn');
   // The shared details type has no noise block; the extra key travels in the same JSON column.
   const details: NoiseResultDetails = { statement, flags, noise };
@@ -825,7 +888,15 @@ export function acceptNoiseLog(db: Db, clock: Clock, input: { organizationId: nu
       .set({ status: 'accepted', shiftResultId: result.id, acceptedByUserId: input.actor?.id ?? null, acceptedAt: stamp, updatedAt: stamp })
       .where(eq(noiseLogs.id, row.id))
       .run();
-    audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType: 'noise_log', entityId: row.id, action: 'accepted', after: { shiftResultId: result.id, value: figures.value, unit: group.oelUnit }, at: now });
+    audit(tx, {
+      organizationId: input.organizationId,
+      actor: input.actor,
+      entityType: 'noise_log',
+      entityId: row.id,
+      action: 'accepted',
+      after: { shiftResultId: result.id, value: figures.value, unit: group.oelUnit },
+      at: now,
+    });
   });
   return getNoiseLog(db, input.organizationId, input.logId);
 }
@@ -845,10 +916,25 @@ function saveMappingPreset(tx: Tx, now: Date, input: { organizationId: number; a
   }
   const row = tx
     .insert(noiseMappingPresets)
-    .values({ organizationId: input.organizationId, name: input.name, mapping: input.mapping, createdByUserId: input.actor?.id ?? null, createdAt: stamp, updatedAt: stamp })
+    .values({
+      organizationId: input.organizationId,
+      name: input.name,
+      mapping: input.mapping,
+      createdByUserId: input.actor?.id ?? null,
+      createdAt: stamp,
+      updatedAt: stamp,
+    })
     .returning({ id: noiseMappingPresets.id })
     .get();
-  audit(tx, { organizationId: input.organizationId, actor: input.actor, entityType: 'noise_mapping_preset', entityId: row.id, action: 'created', after: { name: input.name }, at: now });
+  audit(tx, {
+    organizationId: input.organizationId,
+    actor: input.actor,
+    entityType: 'noise_mapping_preset',
+    entityId: row.id,
+    action: 'created',
+    after: { name: input.name },
+    at: now,
+  });
   return row.id;
 }
 
@@ -862,4 +948,3 @@ export function createMappingPreset(db: Db, clock: Clock, input: { organizationI
 export function listMappingPresets(db: Db, organizationId: number) {
   return db.select().from(noiseMappingPresets).where(eq(noiseMappingPresets.organizationId, organizationId)).orderBy(asc(noiseMappingPresets.name)).all();
 }
-

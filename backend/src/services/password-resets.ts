@@ -21,11 +21,7 @@ const invalidLink = () =>
  * returns the plain token for the e-mail. Undefined when no account has the address (the route
  * answers the same either way, so the answer does not reveal who has an account).
  */
-export function requestPasswordReset(
-  db: Db,
-  clock: Clock,
-  email: string,
-): { user: User; token: string; expiresAt: Date } | undefined {
+export function requestPasswordReset(db: Db, clock: Clock, email: string): { user: User; token: string; expiresAt: Date } | undefined {
   const user = findUserByEmail(db, email);
   if (!user) return undefined;
   const now = clock.now();
@@ -57,8 +53,7 @@ export function requestPasswordReset(
  */
 export async function resetPassword(db: Db, clock: Clock, token: string, password: string): Promise<void> {
   const hash = hashToken(token);
-  const openReset = () =>
-    and(eq(passwordResets.tokenHash, hash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, clock.now().toISOString()));
+  const openReset = () => and(eq(passwordResets.tokenHash, hash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, clock.now().toISOString()));
   const reset = db.select().from(passwordResets).where(openReset()).get();
   if (!reset) throw invalidLink();
   const passwordHash = await hashPassword(password);

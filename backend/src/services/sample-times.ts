@@ -31,8 +31,7 @@ export function sampleMinutes(
   shiftDate: string,
 ): { ok: true; minutes: number; startMinute: number; endMinute: number } | { ok: false; field: 'startTime' | 'endTime'; message: string } {
   const startMinute = minutesFromShiftStart(start, shiftDate);
-  if (startMinute === undefined)
-    return { ok: false, field: 'startTime', message: `expected a time written HH:MM (or ${shiftDate}T08:00), got "${start}"` };
+  if (startMinute === undefined) return { ok: false, field: 'startTime', message: `expected a time written HH:MM (or ${shiftDate}T08:00), got "${start}"` };
   const endMinute = minutesFromShiftStart(end, shiftDate);
   if (endMinute === undefined)
     return { ok: false, field: 'endTime', message: `expected a time written HH:MM (or ${addDays(shiftDate, 1)}T06:00 after midnight), got "${end}"` };

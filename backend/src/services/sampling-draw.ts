@@ -36,10 +36,7 @@ export interface DrawnShift extends CandidateShift {
  * included) × each worker whose membership covers it. Sorted by date, worker code and id, so the
  * list — and with it the draw — does not depend on the order the database returned rows in.
  */
-export function candidateShifts(
-  periods: readonly MemberPeriod[],
-  window: { startDate: string; endDate: string; includeWeekends: boolean },
-): CandidateShift[] {
+export function candidateShifts(periods: readonly MemberPeriod[], window: { startDate: string; endDate: string; includeWeekends: boolean }): CandidateShift[] {
   const candidates: CandidateShift[] = [];
   const seen = new Set<string>();
   for (const date of eachDate(window.startDate, window.endDate)) {
@@ -52,9 +49,7 @@ export function candidateShifts(
       candidates.push({ workerId: period.workerId, workerCode: period.workerCode, date });
     }
   }
-  return candidates.sort(
-    (a, b) => a.date.localeCompare(b.date) || a.workerCode.localeCompare(b.workerCode) || a.workerId - b.workerId,
-  );
+  return candidates.sort((a, b) => a.date.localeCompare(b.date) || a.workerCode.localeCompare(b.workerCode) || a.workerId - b.workerId);
 }
 
 /**

@@ -74,7 +74,14 @@ function storeDraw(tx: Tx, plan: SamplingPlan): number {
   const picks = drawShifts(candidates, plan.targetCount, plan.seed);
   for (const pick of picks) {
     tx.insert(plannedPicks)
-      .values({ organizationId: plan.organizationId, samplingPlanId: plan.id, draw: plan.draw, workerId: pick.workerId, date: pick.date, position: pick.position })
+      .values({
+        organizationId: plan.organizationId,
+        samplingPlanId: plan.id,
+        draw: plan.draw,
+        workerId: pick.workerId,
+        date: pick.date,
+        position: pick.position,
+      })
       .run();
   }
   tx.update(samplingPlans).set({ availableShifts: candidates.length }).where(eq(samplingPlans.id, plan.id)).run();
@@ -84,9 +91,13 @@ function storeDraw(tx: Tx, plan: SamplingPlan): number {
 function warningsFor(plan: SamplingPlan, picked: number): string[] {
   const warnings: string[] = [];
   if (plan.availableShifts === 0)
-    warnings.push(`The group has no members on the plan's ${plan.includeWeekends ? '' : 'working '}days from ${plan.startDate} to ${plan.endDate}: add members, then redraw.`);
+    warnings.push(
+      `The group has no members on the plan's ${plan.includeWeekends ? '' : 'working '}days from ${plan.startDate} to ${plan.endDate}: add members, then redraw.`,
+    );
   else if (picked < plan.targetCount)
-    warnings.push(`Only ${plan.availableShifts} worker-shifts are available from ${plan.startDate} to ${plan.endDate}; the plan picks all of them, ${plan.targetCount - picked} short of the target.`);
+    warnings.push(
+      `Only ${plan.availableShifts} worker-shifts are available from ${plan.startDate} to ${plan.endDate}; the plan picks all of them, ${plan.targetCount - picked} short of the target.`,
+    );
   if (plan.targetCount < samplingGuidance.defaultTargetCount)
     warnings.push('Fewer than 6 results allow only the preliminary test of EN 689:2018, not its statistical test.');
   return warnings;
@@ -115,7 +126,15 @@ function picksOf(db: Tx, plan: SamplingPlan, access: NameAccess): { picks: PlanP
   const resultByShift = new Map(results.map((result) => [`${result.workerId}|${result.date}`, result.id]));
   const picks = rows.map(({ pick, worker }) => {
     const resultId = resultByShift.get(`${pick.workerId}|${pick.date}`) ?? null;
-    return { id: pick.id, position: pick.position, date: pick.date, weekday: weekdayOf(pick.date), worker: workerReference(worker, access), done: resultId !== null, resultId };
+    return {
+      id: pick.id,
+      position: pick.position,
+      date: pick.date,
+      weekday: weekdayOf(pick.date),
+      worker: workerReference(worker, access),
+      done: resultId !== null,
+      resultId,
+    };
   });
   const pickedShifts = new Set(rows.map(({ pick }) => `${pick.workerId}|${pick.date}`));
   const done = picks.filter((pick) => pick.done).length;
@@ -318,7 +337,16 @@ const fieldsToRecord = {
     'Controls and protective equipment in use',
     'Initials',
   ],
-  noise: ['Dosimeter id', 'Calibration before (dB)', 'Calibration after (dB)', 'Start time', 'End time', 'Tasks and conditions during the shift', 'Hearing protection worn', 'Initials'],
+  noise: [
+    'Dosimeter id',
+    'Calibration before (dB)',
+    'Calibration after (dB)',
+    'Start time',
+    'End time',
+    'Tasks and conditions during the shift',
+    'Hearing protection worn',
+    'Initials',
+  ],
 } as const;
 
 /**
@@ -361,7 +389,8 @@ export function fieldSheet(db: Db, clock: Clock, organizationId: number, planId:
       warnings: plan.warnings,
     },
     rows: plan.picks,
-    fieldsToRecord: fieldsToRecord[agent.kind],
+    // A mixture's components are sampled as chemicals (docs/decisions/023-hearing-protectors-and-mixtures.md).
+    fieldsToRecord: fieldsToRecord[agent.kind === 'noise' ? 'noise' : 'chemical'],
     instructions: [
       'Sample the whole shift of the worker on the date shown; if that shift cannot be sampled, note why and ask for a replacement pick rather than choosing another worker yourself.',
       'Record the times the sampler was switched on and off; for several samples in one shift, record each one.',

@@ -90,7 +90,12 @@ export function listShiftResults(db: Db, organizationId: number, query: ShiftRes
     query.nonDetect === undefined ? undefined : eq(shiftResults.nonDetect, query.nonDetect),
     query.from ? gte(shiftResults.date, query.from) : undefined,
     query.to ? lte(shiftResults.date, query.to) : undefined,
-    searchCondition(query.q, access.canSeeNames ? [workers.code, workers.name, shiftResults.sampleId, shiftResults.lab, shiftResults.notes] : [workers.code, shiftResults.sampleId, shiftResults.lab, shiftResults.notes]),
+    searchCondition(
+      query.q,
+      access.canSeeNames
+        ? [workers.code, workers.name, shiftResults.sampleId, shiftResults.lab, shiftResults.notes]
+        : [workers.code, shiftResults.sampleId, shiftResults.lab, shiftResults.notes],
+    ),
   );
   const total = db.select({ total: count() }).from(shiftResults).innerJoin(workers, eq(workers.id, shiftResults.workerId)).where(where).get()?.total ?? 0;
   const { limit, offset } = pageWindow(query.page, query.pageSize);
@@ -132,6 +137,15 @@ export function getShiftResult(db: Tx, organizationId: number, resultId: number,
     .get();
   if (!row) throw new NotFound(`No shift result ${resultId} in this organization`);
   return toResultView(row, access);
+}
+
+/** Every result an import batch stored, in the order they were stored (one query, not one per result). */
+export function getShiftResultsOfImport(db: Tx, organizationId: number, importBatchId: number, access: NameAccess): ShiftResultView[] {
+  return selectResultViews(db)
+    .where(and(eq(shiftResults.importBatchId, importBatchId), eq(shiftResults.organizationId, organizationId)))
+    .orderBy(shiftResults.id)
+    .all()
+    .map((row) => toResultView(row, access));
 }
 
 /** The valid result already recorded for this worker-shift in the group, if any. */
@@ -181,7 +195,7 @@ export interface NewShiftResult {
  * mixtures) goes through here too, so the one-valid-result-per-shift rule and the data version
  * hold for every source.
  */
-export function insertShiftResult(tx: Tx, now: Date, actor: Actor, input: NewShiftResult): ShiftResult {
+export function insertShiftResult(tx: Tx, now: Date, actor: Actor, input: NewShiftResult, options: { touchGroup?: boolean } = {}): ShiftResult {
   const existing = validResultFor(tx, { exposureGroupId: input.group.id, workerId: input.worker.id, agentId: input.agent.id, date: input.date });
   if (existing) {
     throw new Conflict(
@@ -237,7 +251,8 @@ export function insertShiftResult(tx: Tx, now: Date, actor: Actor, input: NewShi
     },
     at: now,
   });
-  touchGroupResults(tx, input.group.id, now);
+  // A bulk insert (lab import) moves each group's data version once, after its rows, in the same transaction.
+  if (options.touchGroup ?? true) touchGroupResults(tx, input.group.id, now);
   return row;
 }
 
@@ -373,9 +388,14 @@ export function restoreShiftResult(
     const current = findResult(tx, input.organizationId, input.resultId);
     if (current.status === 'valid') throw new Conflict(`Result ${current.id} is not void`);
     const other = validResultFor(tx, current, current.id);
-    if (other) throw new Conflict(`Result ${other.id} is now the valid result for this worker and date: void it first to restore result ${current.id}`, { resultId: other.id });
+    if (other)
+      throw new Conflict(`Result ${other.id} is now the valid result for this worker and date: void it first to restore result ${current.id}`, {
+        resultId: other.id,
+      });
     if (!isMemberOn(tx, current.workerId, current.exposureGroupId, current.date)) {
-      throw new Conflict(`The worker is no longer a member of the group on ${current.date} (${periodsInWords(tx, current.workerId, current.exposureGroupId)}): change the membership first`);
+      throw new Conflict(
+        `The worker is no longer a member of the group on ${current.date} (${periodsInWords(tx, current.workerId, current.exposureGroupId)}): change the membership first`,
+      );
     }
     const stamp = now.toISOString();
     tx.update(shiftResults)
@@ -410,4 +430,3 @@ export function resultCounts(results: readonly Pick<ShiftResult, 'status' | 'non
     detected: valid.filter((result) => !result.nonDetect).length,
   };
 }
-

@@ -96,7 +96,9 @@ export function updateSite(
           .where(and(eq(exposureGroups.siteId, current.id), eq(exposureGroups.archived, false)))
           .get()?.total ?? 0;
       if (inUse > 0)
-        throw new Conflict(`Site "${current.name}" still has ${inUse} exposure group${inUse === 1 ? '' : 's'} in use: archive ${inUse === 1 ? 'it' : 'them'} first`);
+        throw new Conflict(
+          `Site "${current.name}" still has ${inUse} exposure group${inUse === 1 ? '' : 's'} in use: archive ${inUse === 1 ? 'it' : 'them'} first`,
+        );
     }
     tx.update(sites)
       .set({ ...after, updatedAt: now.toISOString() })

@@ -13,8 +13,7 @@ import { convertAirConcentration, molarVolumeLitresAt25C } from '@stats/unit-con
 const massFactor: Partial<Record<ExposureUnit, number>> = { 'mg/m3': 1, 'ug/m3': 0.001 };
 
 export type UnitConversion =
-  | { ok: true; convert: (value: number) => number; details: ShiftResultDetails['conversion'] | undefined }
-  | { ok: false; message: string };
+  { ok: true; convert: (value: number) => number; details: ShiftResultDetails['conversion'] | undefined } | { ok: false; message: string };
 
 /**
  * How to turn a value in `from` into `to` for this agent, or why it cannot be done.
@@ -35,7 +34,10 @@ export function conversionBetween(from: ExposureUnit, to: ExposureUnit, agent: P
   const involvesPpm = (from === 'ppm' && toMass !== undefined) || (to === 'ppm' && fromMass !== undefined);
   if (!involvesPpm) return { ok: false, message: `${cannot}: the units measure different things` };
   if (agent.kind !== 'chemical' || agent.molecularWeight === null) {
-    return { ok: false, message: `${cannot} for "${agent.name}": the agent has no molecular weight (set it on the agent, or report in ${exposureUnitLabels[to]})` };
+    return {
+      ok: false,
+      message: `${cannot} for "${agent.name}": the agent has no molecular weight (set it on the agent, or report in ${exposureUnitLabels[to]})`,
+    };
   }
   const molecularWeight = agent.molecularWeight;
   const details = {
@@ -56,13 +58,7 @@ export function conversionBetween(from: ExposureUnit, to: ExposureUnit, agent: P
  * `f/ml`, `fibres/cm3`, `dBA`, `dB(A)`, `%`, `% dose`… Undefined when not recognised.
  */
 export function parseUnit(text: string): ExposureUnit | undefined {
-  const key = text
-    .trim()
-    .toLowerCase()
-    .replace(/³/g, '3')
-    .replace(/μ|µ/g, 'u')
-    .replace(/\s+/g, '')
-    .replace(/\^/g, '');
+  const key = text.trim().toLowerCase().replace(/³/g, '3').replace(/μ|µ/g, 'u').replace(/\s+/g, '').replace(/\^/g, '');
   const aliases: Record<string, ExposureUnit> = {
     'mg/m3': 'mg/m3',
     mgm3: 'mg/m3',

@@ -8,10 +8,6 @@ export function findUserByEmail(db: Db, email: string): User | undefined {
   return db.select().from(users).where(eq(users.email, email.trim().toLowerCase())).get();
 }
 
-export function findUserById(db: Db, id: number): User | undefined {
-  return db.select().from(users).where(eq(users.id, id)).get();
-}
-
 /** The user as the API shows it (no hash, no timestamps). */
 export function publicUser(user: User): UserPublic {
   return { id: user.id, email: user.email, name: user.name };

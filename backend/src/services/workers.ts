@@ -31,7 +31,7 @@ import { archiveAction } from './sites';
  * A worker as the API sends it. Without 'workerNames:read' the `name` key is absent and
  * `nameHidden` is true.
  */
-export type WorkerPublic = Omit<Worker, 'name' | 'organizationId'> & { name?: string | null; nameHidden?: true };
+export type WorkerPublic = Omit<Worker, 'name' | 'email' | 'organizationId'> & { name?: string | null; email?: string | null; nameHidden?: true };
 
 /** Whether the caller may see worker names, passed from the route (the role's permissions). */
 export interface NameAccess {
@@ -40,8 +40,9 @@ export interface NameAccess {
 
 /** Strips the name unless the caller may see names. */
 export function presentWorker(worker: Worker, access: NameAccess): WorkerPublic {
-  const { name, organizationId: _organizationId, ...rest } = worker;
-  return access.canSeeNames ? { ...rest, name } : { ...rest, nameHidden: true };
+  // The e-mail address is personal data like the name: both travel only with 'workerNames:read'.
+  const { name, email, organizationId: _organizationId, ...rest } = worker;
+  return access.canSeeNames ? { ...rest, name, email } : { ...rest, nameHidden: true };
 }
 
 /** A worker reference inside other objects (members, picks, results): code always, name if allowed. */
@@ -173,16 +174,15 @@ function checkCodeFree(db: Tx, organizationId: number, code: string, exceptId?: 
 
 /** What the audit trail keeps of a worker: never the name itself. */
 function workerAuditFields(worker: Partial<Worker>): Record<string, unknown> {
-  const { name, organizationId: _organizationId, createdAt: _createdAt, updatedAt: _updatedAt, ...rest } = worker;
-  return name === undefined ? rest : { ...rest, nameRecorded: name !== null && name !== '' };
+  const { name, email, organizationId: _organizationId, createdAt: _createdAt, updatedAt: _updatedAt, ...rest } = worker;
+  return {
+    ...rest,
+    ...(name === undefined ? {} : { nameRecorded: name !== null && name !== '' }),
+    ...(email === undefined ? {} : { emailRecorded: email !== null && email !== '' }),
+  };
 }
 
-export function createWorker(
-  db: Db,
-  clock: Clock,
-  input: { organizationId: number; actor: Actor; worker: WorkerCreate },
-  access: NameAccess,
-): WorkerDetail {
+export function createWorker(db: Db, clock: Clock, input: { organizationId: number; actor: Actor; worker: WorkerCreate }, access: NameAccess): WorkerDetail {
   const now = clock.now();
   const stamp = now.toISOString();
   const id = db.transaction((tx) => {
@@ -194,6 +194,7 @@ export function createWorker(
         code: input.worker.code,
         name: input.worker.name ? input.worker.name : null,
         jobTitle: input.worker.jobTitle ?? '',
+        email: input.worker.email ? input.worker.email : null,
         createdAt: stamp,
         updatedAt: stamp,
       })
@@ -205,7 +206,8 @@ export function createWorker(
       entityType: 'worker',
       entityId: row.id,
       action: 'created',
-      after: workerAuditFields({ code: row.code, jobTitle: row.jobTitle, name: row.name }),
+      // An address is mentioned only when one was given, so a worker created without one reads as before.
+      after: workerAuditFields({ code: row.code, jobTitle: row.jobTitle, name: row.name, ...(row.email ? { email: row.email } : {}) }),
       at: now,
     });
     return row.id;
@@ -224,6 +226,7 @@ export function updateWorker(
     const current = findWorker(tx, input.organizationId, input.workerId);
     const changes = { ...input.changes };
     if (changes.name === '') changes.name = null;
+    if (changes.email === '') changes.email = null;
     const { before, after } = changedFields(current, changes as Partial<Worker>);
     if (Object.keys(after).length === 0) return;
     if (after.code !== undefined) checkCodeFree(tx, input.organizationId, String(after.code), current.id);
@@ -366,7 +369,10 @@ export function updateGroupMembership(
       toDate: input.changes.toDate === undefined ? current.toDate : input.changes.toDate,
     };
     if (period.toDate !== null && period.toDate < period.fromDate)
-      throw fieldError(input.changes.toDate !== undefined ? 'toDate' : 'fromDate', `The end date (${period.toDate}) is before the start date (${period.fromDate})`);
+      throw fieldError(
+        input.changes.toDate !== undefined ? 'toDate' : 'fromDate',
+        `The end date (${period.toDate}) is before the start date (${period.fromDate})`,
+      );
     const { before, after } = changedFields(current, { fromDate: period.fromDate, toDate: period.toDate });
     if (Object.keys(after).length === 0) return;
     const worker = findWorker(tx, input.organizationId, current.workerId);

@@ -24,7 +24,13 @@ export function GroupFormPage({ group }: { group?: ExposureGroupView }) {
   const base = `/orgs/${encodeURIComponent(organizationId)}`;
 
   if (sites.isError || agents.isError)
-    return <ErrorState title="Could not load the sites and agents" error={sites.error ?? agents.error} onRetry={() => void Promise.all([sites.refetch(), agents.refetch()])} />;
+    return (
+      <ErrorState
+        title="Could not load the sites and agents"
+        error={sites.error ?? agents.error}
+        onRetry={() => void Promise.all([sites.refetch(), agents.refetch()])}
+      />
+    );
   if (!sites.data || !agents.data) return <LoadingState label="Loading sites and agents…" />;
   if (!group && (sites.data.items.length === 0 || agents.data.items.length === 0)) {
     return (
@@ -43,7 +49,9 @@ export function GroupFormPage({ group }: { group?: ExposureGroupView }) {
       agentOfEntries={entries.data ? agentId : undefined}
       onAgentChange={onAgentChange}
       onCancel={() => navigate(group ? `${base}/exposure-groups/${group.id}` : `${base}/exposure-groups`)}
-      onSaved={(saved) => navigate(`${base}/exposure-groups/${saved.id}`, { state: { saved: group ? 'Group saved.' : 'Group created. Add its members next.' } })}
+      onSaved={(saved) =>
+        navigate(`${base}/exposure-groups/${saved.id}`, { state: { saved: group ? 'Group saved.' : 'Group created. Add its members next.' } })
+      }
     />
   );
 }

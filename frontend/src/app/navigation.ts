@@ -11,11 +11,13 @@ export const organizationPages = [
   { path: '/workers', label: 'Workers', permission: 'org:read' },
   { path: '/sites', label: 'Sites', permission: 'org:read' },
   { path: '/agents', label: 'Agents & OELs', permission: 'org:read' },
+  { path: '/hearing-protectors', label: 'Hearing protectors', permission: 'org:read' },
   // Importing writes results: only for roles that may change data (the import history is on the same page).
   { path: '/lab-imports', label: 'Import results', permission: 'data:edit' },
   { path: '/noise-logs', label: 'Noise logs', permission: 'org:read' },
   { path: '/noise-settings', label: 'Noise settings', permission: 'settings:manage' },
   { path: '/users', label: 'People', permission: 'users:manage' },
+  { path: '/audit', label: 'Audit trail', permission: 'audit:read' },
 ] as const satisfies ReadonlyArray<{ path: string; label: string; permission: Permission }>;
 
 /** "/orgs/7" + the part of the current path after the organization, if that role may open it. */

@@ -12,13 +12,7 @@ interface Explained {
 /** Turns whatever a loader or render threw into words for the reader. */
 function explain(error: unknown): Explained {
   const status = isRouteErrorResponse(error) ? error.status : isApiError(error) ? error.status : null;
-  const detail = isRouteErrorResponse(error)
-    ? typeof error.data === 'string'
-      ? error.data
-      : error.statusText
-    : error instanceof Error
-      ? error.message
-      : '';
+  const detail = isRouteErrorResponse(error) ? (typeof error.data === 'string' ? error.data : error.statusText) : error instanceof Error ? error.message : '';
   if (status === 404) return { status, title: 'Not found', message: detail || 'Nothing lives at this address, or it is not open to you.' };
   if (status === 403) return { status, title: 'Not available to your role', message: detail || 'Your role does not include this page.' };
   if (status === 401) return { status, title: 'Signed out', message: 'Your session ended. Sign in again to continue.' };

@@ -31,7 +31,12 @@ export function ArchiveToggle({
   const [open, setOpen] = useState(false);
   return (
     <>
-      <Button size={size} variant={archived ? 'secondary' : 'danger'} aria-label={`${archived ? 'Bring back' : 'Archive'} ${what} ${name}`} onClick={() => setOpen(true)}>
+      <Button
+        size={size}
+        variant={archived ? 'secondary' : 'danger'}
+        aria-label={`${archived ? 'Bring back' : 'Archive'} ${what} ${name}`}
+        onClick={() => setOpen(true)}
+      >
         {archived ? 'Bring back' : 'Archive'}
       </Button>
       <ReasonDialog

@@ -13,7 +13,16 @@ function describedBy(hintId: string | undefined, errorId: string | undefined): s
   return [hintId, errorId].filter(Boolean).join(' ') || undefined;
 }
 
-function FieldFrame({ id, label, hint, hintId, error, errorId, className = '', children }: FieldFrameProps & { id: string; hintId: string; errorId: string; children: ReactNode }) {
+function FieldFrame({
+  id,
+  label,
+  hint,
+  hintId,
+  error,
+  errorId,
+  className = '',
+  children,
+}: FieldFrameProps & { id: string; hintId: string; errorId: string; children: ReactNode }) {
   return (
     <div className={`space-y-1 ${className}`}>
       <label htmlFor={id} className="block text-sm font-medium text-slate-800">

@@ -6,7 +6,19 @@ import { TextField } from './form-field';
  * not send a request. Escape clears it. `value` follows the address when it changes elsewhere
  * (back button).
  */
-export function SearchField({ label, value, onSearch, className = 'min-w-56 flex-1', hint }: { label: string; value: string; onSearch: (text: string) => void; className?: string; hint?: string }) {
+export function SearchField({
+  label,
+  value,
+  onSearch,
+  className = 'min-w-56 flex-1',
+  hint,
+}: {
+  label: string;
+  value: string;
+  onSearch: (text: string) => void;
+  className?: string;
+  hint?: string;
+}) {
   const [text, setText] = useState(value);
   const latest = useRef(onSearch);
   latest.current = onSearch;

@@ -141,12 +141,9 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
 /** `api.get<Member[]>('/api/orgs/1/members', { signal })` and so on. */
 export const api = {
   get: <T>(path: string, options?: Pick<RequestOptions, 'signal'>) => request<T>('GET', path, options),
-  post: <T>(path: string, body?: unknown, options?: Pick<RequestOptions, 'signal'>) =>
-    request<T>('POST', path, { ...options, body }),
-  put: <T>(path: string, body?: unknown, options?: Pick<RequestOptions, 'signal'>) =>
-    request<T>('PUT', path, { ...options, body }),
-  patch: <T>(path: string, body?: unknown, options?: Pick<RequestOptions, 'signal'>) =>
-    request<T>('PATCH', path, { ...options, body }),
+  post: <T>(path: string, body?: unknown, options?: Pick<RequestOptions, 'signal'>) => request<T>('POST', path, { ...options, body }),
+  put: <T>(path: string, body?: unknown, options?: Pick<RequestOptions, 'signal'>) => request<T>('PUT', path, { ...options, body }),
+  patch: <T>(path: string, body?: unknown, options?: Pick<RequestOptions, 'signal'>) => request<T>('PATCH', path, { ...options, body }),
   delete: <T = void>(path: string, options?: Pick<RequestOptions, 'signal'>) => request<T>('DELETE', path, options),
   /** POST a multipart form (a file upload), with the CSRF token like every other write. */
   upload: <T>(path: string, form: FormData, options?: Pick<RequestOptions, 'signal'>) => request<T>('POST', path, { ...options, body: form }),

@@ -6,11 +6,7 @@ import { isApiError } from './api-client';
  * returns the message for the form as a whole, shown above the submit button (an alert, so it
  * is announced). Fields the form does not show are appended to that message, so nothing is lost.
  */
-export function applyServerErrors<T extends FieldValues>(
-  error: unknown,
-  setError: UseFormSetError<T>,
-  formFields: ReadonlyArray<Path<T>>,
-): string {
+export function applyServerErrors<T extends FieldValues>(error: unknown, setError: UseFormSetError<T>, formFields: ReadonlyArray<Path<T>>): string {
   if (!isApiError(error)) return error instanceof Error ? error.message : 'Something went wrong. Try again.';
   const leftover: string[] = [];
   for (const [field, message] of Object.entries(error.fields ?? {})) {
@@ -25,11 +21,7 @@ export function applyServerErrors<T extends FieldValues>(
  * is only a pointer to them ("Correct the fields marked above."), so the same words do not show
  * twice; anything not tied to a shown field still appears in full.
  */
-export function applyServerErrorsInline<T extends FieldValues>(
-  error: unknown,
-  setError: UseFormSetError<T>,
-  formFields: ReadonlyArray<Path<T>>,
-): string {
+export function applyServerErrorsInline<T extends FieldValues>(error: unknown, setError: UseFormSetError<T>, formFields: ReadonlyArray<Path<T>>): string {
   const message = applyServerErrors(error, setError, formFields);
   if (!isApiError(error) || !error.fields) return message;
   const allShown = Object.keys(error.fields).every((field) => (formFields as readonly string[]).includes(field));

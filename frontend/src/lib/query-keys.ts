@@ -19,4 +19,5 @@ export const orgKeys = {
   samplingGuidance: (organizationId: string) => ['orgs', organizationId, 'sampling-guidance'] as const,
   decisionRecords: (organizationId: string) => ['orgs', organizationId, 'decision-records'] as const,
   dashboard: (organizationId: string) => ['orgs', organizationId, 'dashboard'] as const,
+  noiseEstimates: (organizationId: string) => ['orgs', organizationId, 'noise-estimates'] as const,
 };

@@ -80,14 +80,7 @@ describe('assess command on a file of mixed good and bad groups', () => {
     expect(stderr).toBe('');
     expect(code).toBe(0);
     const report = JSON.parse(stdout) as { groups: Record<string, unknown>[] };
-    expect(report.groups.map((g) => g.group)).toEqual([
-      'planer feeder',
-      'saw filer',
-      'edger operator',
-      'head sawyer',
-      'forklift driver',
-      'maintenance fitter',
-    ]);
+    expect(report.groups.map((g) => g.group)).toEqual(['planer feeder', 'saw filer', 'edger operator', 'head sawyer', 'forklift driver', 'maintenance fitter']);
     for (const group of report.groups) for (const field of CONTRACT_FIELDS) expect(group, `${String(group.group)}.${field}`).toHaveProperty(field);
   });
 
@@ -134,7 +127,8 @@ describe('assess command on a file of mixed good and bad groups', () => {
     expect(sawyer.en689.result).toMatch(/^(compliant|non-compliant)$/);
     expect(typeof sawyer.en689.ut).toBe('number'); // 7 results: the statistical test
     // Same seed, same bootstrap limits.
-    const again = (JSON.parse(run(['--input', file('mixed.csv', MIXED), '--oel', '0.1', '--seed', '11']).stdout) as { groups: Record<string, any>[] }).groups[3];
+    const again = (JSON.parse(run(['--input', file('mixed.csv', MIXED), '--oel', '0.1', '--seed', '11']).stdout) as { groups: Record<string, any>[] })
+      .groups[3];
     expect(again.utl95_95).toBe(sawyer.utl95_95);
   });
 
@@ -154,7 +148,8 @@ describe('assess command on a file of mixed good and bad groups', () => {
     const { code, stdout } = run(['--input', input, '--oel', '0.1', '--bayes']);
     expect(code).toBe(0);
     const [good, bad] = (JSON.parse(stdout) as { groups: { bayes: Record<string, any> | null }[] }).groups;
-    for (const key of ['gm', 'gsd', 'p95', 'exceedanceFraction']) expect(Object.keys(good.bayes?.[key] ?? {}).sort()).toEqual(['lower', 'median', 'q95', 'upper']);
+    for (const key of ['gm', 'gsd', 'p95', 'exceedanceFraction'])
+      expect(Object.keys(good.bayes?.[key] ?? {}).sort()).toEqual(['lower', 'median', 'q95', 'upper']);
     expect(good.bayes?.categoryProbabilities).toHaveLength(5);
     expect(bad.bayes).toBeNull();
   }, 60_000);
@@ -162,7 +157,14 @@ describe('assess command on a file of mixed good and bad groups', () => {
 
 describe('assess command errors', () => {
   it('exits with code 2 and the usage on stderr for bad usage', () => {
-    for (const argv of [[], ['--oel', '1'], ['--input', 'x.csv', '--oel', 'abc'], ['--input', 'x.csv', '--oel', '1', '--seed', '0'], ['--input', 'x.csv'], ['--nope']]) {
+    for (const argv of [
+      [],
+      ['--oel', '1'],
+      ['--input', 'x.csv', '--oel', 'abc'],
+      ['--input', 'x.csv', '--oel', '1', '--seed', '0'],
+      ['--input', 'x.csv'],
+      ['--nope'],
+    ]) {
       const { code, stdout, stderr } = run(argv);
       expect(code, argv.join(' ')).toBe(2);
       expect(stdout).toBe('');
@@ -195,15 +197,40 @@ describe('assess command errors', () => {
   });
 });
 
-describe('assess command as a child process', () => {
-  it('runs through npx tsx, prints the JSON document and exits 0; bad usage exits 2', () => {
+describe('assess command as a child process (npm run -s assess, the contract in PRODUCT.md)', () => {
+  const npmAssess = (argv: string[]) => spawnSync('npm', ['run', '-s', 'assess', '--', ...argv], { encoding: 'utf8' });
+
+  it('prints the JSON document and exits 0; bad usage exits 2', () => {
     const input = file('process.csv', 'group,value\ncutter,0.02\ncutter,0.05\ncutter,0.03\ncutter,0.04\n');
-    const ok = spawnSync('npx', ['tsx', 'backend/src/cli/assess.ts', '--input', input, '--oel', '0.05'], { encoding: 'utf8' });
+    const ok = npmAssess(['--input', input, '--oel', '0.05']);
     expect(ok.status).toBe(0);
     const report = JSON.parse(ok.stdout) as { groups: { group: string; n: number; categoryByP95: number }[] };
     expect(report.groups[0]).toMatchObject({ group: 'cutter', n: 4 });
-    const bad = spawnSync('npx', ['tsx', 'backend/src/cli/assess.ts', '--oel', '1'], { encoding: 'utf8' });
+    const bad = npmAssess(['--oel', '1']);
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/--input FILE.csv is required/);
-  }, 60_000);
+  }, 120_000);
+
+  it('with --bayes and enough groups for worker threads, prints exactly what the in-process command prints', () => {
+    // Four or more groups start worker threads from the prebuilt bundle (dist/cli/assessment-worker.mjs);
+    // each group's chains are seeded from --seed alone, so the thread that computed a group cannot show.
+    const rows = ['group,value'];
+    for (const [group, scale] of [
+      ['cutter', 0.02],
+      ['polisher', 0.05],
+      ['installer', 0.01],
+      ['saw filer', 0.03],
+    ] as const) {
+      for (let i = 0; i < 8; i++) rows.push(i === 0 ? `${group},<${scale}` : `${group},${(scale * (1 + ((i * 37) % 11) / 5)).toFixed(4)}`);
+    }
+    const input = file('threads.csv', rows.join('\n') + '\n');
+    const argv = ['--input', input, '--oel', '0.1', '--bayes', '--seed', '7'];
+    const child = npmAssess(argv);
+    expect(child.stderr).toBe('');
+    expect(child.status).toBe(0);
+    const inProcess = run(argv);
+    expect(inProcess.code).toBe(0);
+    expect(JSON.parse(child.stdout)).toEqual(JSON.parse(inProcess.stdout));
+    expect((JSON.parse(child.stdout) as { groups: { bayes: unknown }[] }).groups.every((g) => g.bayes !== null)).toBe(true);
+  }, 120_000);
 });

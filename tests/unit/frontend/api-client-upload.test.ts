@@ -40,7 +40,7 @@ describe('api.upload', () => {
 });
 
 describe('ApiError details', () => {
-  it('keeps the details of a 400, such as a lab file\'s problems by row and column', async () => {
+  it("keeps the details of a 400, such as a lab file's problems by row and column", async () => {
     rememberCsrfToken('token-1');
     const problems = [{ row: 3, column: 'Worker', message: 'no worker "RT-999" in this organization' }];
     answer(400, { error: { code: 'bad_request', message: 'The lab import was refused (1 problem; nothing was stored)', details: { problems } } });

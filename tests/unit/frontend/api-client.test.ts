@@ -92,7 +92,7 @@ describe('api client', () => {
     expect(calls).toHaveLength(1);
   });
 
-  it('a 400 keeps the server\'s message and each field\'s message', async () => {
+  it("a 400 keeps the server's message and each field's message", async () => {
     rememberCsrfToken('token');
     answers.push(() => json(400, { error: { code: 'bad_request', message: 'Check the fields', fields: { email: 'Enter a valid e-mail address' } } }));
     const error = await api.post('/api/auth/sign-in', { email: 'x' }).catch((e: unknown) => e);

@@ -9,12 +9,9 @@ describe('safeNextPath', () => {
     expect(safeNextPath('/orgs/2/users?page=3')).toBe('/orgs/2/users?page=3');
   });
 
-  it.each(['https://evil.example/', '//evil.example/path', '/\\evil.example', 'javascript:alert(1)', 'orgs/2', ''])(
-    'falls back to "/" for %j',
-    (next) => {
-      expect(safeNextPath(next)).toBe('/');
-    },
-  );
+  it.each(['https://evil.example/', '//evil.example/path', '/\\evil.example', 'javascript:alert(1)', 'orgs/2', ''])('falls back to "/" for %j', (next) => {
+    expect(safeNextPath(next)).toBe('/');
+  });
 
   it('falls back to the given default when there is no next', () => {
     expect(safeNextPath(null, '/orgs/1')).toBe('/orgs/1');

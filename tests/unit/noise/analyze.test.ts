@@ -69,7 +69,10 @@ describe('masks for the reviewed figures', () => {
 
   test('a recompute on the prepared log gives the same figures as a full analysis', () => {
     const prepared = prepareNoiseAnalysis(log);
-    const masks = [{ startS: 100, endS: 200 }, { startS: 150, endS: 400 }];
+    const masks = [
+      { startS: 100, endS: 200 },
+      { startS: 150, endS: 400 },
+    ];
     expect(analyzePreparedNoiseLog(prepared, masks)).toEqual(analyzeNoiseLog(log, { masks }));
   });
 });
@@ -82,7 +85,11 @@ describe('calibration drift, peak and shift hours', () => {
         ...(after === null ? {} : { calibration_after_db: after }),
       },
       columns: ['t_s', 'laeq_db', 'lcpeak_db'],
-      rows: [[0, 85, 120.5], [1, 86, 131.2], [2, 84, 99]],
+      rows: [
+        [0, 85, 120.5],
+        [1, 86, 131.2],
+        [2, 84, 99],
+      ],
     });
 
   test('drift is after − before and null unless both are given', () => {
@@ -110,7 +117,11 @@ describe('calibration drift, peak and shift hours', () => {
     // OSHA 29 CFR 1910.95(c): action level 85 dBA TWA = 50 % dose. 4 h at 85 dBA is 4/16 = 25 %,
     // 8 h at 85 dBA is 50 % exactly (T(85) = 16 h).
     const at85 = (hours: number, peak: number) =>
-      buildLog({ metadata: { interval_s: 60 }, columns: ['t_s', 'laeq_db', 'lcpeak_db'], rows: Array.from({ length: hours * 60 }, (_, i) => [i * 60, 85, peak]) });
+      buildLog({
+        metadata: { interval_s: 60 },
+        columns: ['t_s', 'laeq_db', 'lcpeak_db'],
+        rows: Array.from({ length: hours * 60 }, (_, i) => [i * 60, 85, peak]),
+      });
     const half = analyzeNoiseLog(at85(4, 140));
     expect(half.details.actionLevel).toMatchObject({ asLoggedReached: false, reviewedReached: false });
     expect(half.details.peakOver140Db).toBe(false); // 140 itself does not exceed 140
@@ -122,7 +133,14 @@ describe('calibration drift, peak and shift hours', () => {
   });
 
   test('shift hours from the options override the file and only change LEX,8h', () => {
-    const log = buildLog({ metadata: { shift_hours: 8 }, columns: ['t_s', 'laeq_db'], rows: [[0, 90], [1, 92]] });
+    const log = buildLog({
+      metadata: { shift_hours: 8 },
+      columns: ['t_s', 'laeq_db'],
+      rows: [
+        [0, 90],
+        [1, 92],
+      ],
+    });
     const file = analyzeNoiseLog(log);
     const option = analyzeNoiseLog(log, { shiftHours: 10 });
     expect(file.details.exposureHoursSource).toBe('file');

@@ -57,13 +57,24 @@ describe('printing the figures', () => {
   });
 
   test('masks.json replaces the proposed masks for the reviewed figures', () => {
-    const masksFile = write('masks.json', JSON.stringify([{ startS: 0, endS: 3600 }, { startS: 1800, endS: 5400, reason: 'left in the office' }]));
+    const masksFile = write(
+      'masks.json',
+      JSON.stringify([
+        { startS: 0, endS: 3600 },
+        { startS: 1800, endS: 5400, reason: 'left in the office' },
+      ]),
+    );
     const { code, stdout } = run(['--input', logFile, '--masks', masksFile]);
     expect(code).toBe(0);
     const printed = JSON.parse(stdout);
     expect(printed.maskedSeconds).toBe(5400); // overlapping masks counted once
     expect(printed.proposedMasks).toHaveLength(3); // still listed as proposals
-    const expected = analyzeNoiseLog(parseNoiseLog(demoText), { masks: [{ startS: 0, endS: 3600 }, { startS: 1800, endS: 5400 }] });
+    const expected = analyzeNoiseLog(parseNoiseLog(demoText), {
+      masks: [
+        { startS: 0, endS: 3600 },
+        { startS: 1800, endS: 5400 },
+      ],
+    });
     expect(printed.reviewed).toEqual(expected.reviewed);
     const empty = JSON.parse(run(['--input', logFile, '--masks', write('none.json', '[]')]).stdout);
     expect(empty.reviewed).toEqual(empty.asLogged);
@@ -130,18 +141,17 @@ describe('errors', () => {
   });
 });
 
-describe('as a child process (npx tsx backend/src/cli/noise.ts)', () => {
+describe('as a child process (npm run -s noise, the contract in PRODUCT.md)', () => {
   const exec = promisify(execFile);
-  const script = path.resolve(__dirname, '../../../backend/src/cli/noise.ts');
 
   test('prints the same document as main and exits 0', async () => {
-    const { stdout } = await exec('npx', ['tsx', script, '--input', logFile], { cwd: path.resolve(__dirname, '../../..') });
+    const { stdout } = await exec('npm', ['run', '-s', 'noise', '--', '--input', logFile], { cwd: path.resolve(__dirname, '../../..') });
     expect(JSON.parse(stdout)).toEqual(JSON.parse(run(['--input', logFile]).stdout));
   }, 60_000);
 
   test('exits 1 with the error on stderr for a truncated file', async () => {
     const truncated = write('truncated.csv', demoText.slice(0, demoText.lastIndexOf(',')));
-    const failure = await exec('npx', ['tsx', script, '--input', truncated], { cwd: path.resolve(__dirname, '../../..') }).then(
+    const failure = await exec('npm', ['run', '-s', 'noise', '--', '--input', truncated], { cwd: path.resolve(__dirname, '../../..') }).then(
       () => null,
       (error: { code: number; stderr: string; stdout: string }) => error,
     );

@@ -27,7 +27,15 @@ describe('which intervals a mask covers', () => {
 
   test('overlapping masks count each masked interval once', () => {
     const model = prepareNoiseExposure(log);
-    const result = computeNoiseFigures(model, [{ startS: 230, endS: 300 }, { startS: 250, endS: 350 }, { startS: 240, endS: 241 }], 10 / 60);
+    const result = computeNoiseFigures(
+      model,
+      [
+        { startS: 230, endS: 300 },
+        { startS: 250, endS: 350 },
+        { startS: 240, endS: 241 },
+      ],
+      10 / 60,
+    );
     expect(result.maskedIntervals).toBe(3); // intervals 3, 4, 5
     expect(result.maskedSeconds).toBe(180);
   });
@@ -78,7 +86,14 @@ describe('as-logged and reviewed figures', () => {
 
   test('a level exactly at a threshold counts and just below it adds nothing', () => {
     // 60 s at 80.0 dBA adds 60 s / T(80) = 60 / (8·3600·4) to the HC dose (T(80) = 32 h); 79.9 adds nothing.
-    const log = buildLog({ metadata: { interval_s: 60 }, columns: ['t_s', 'laeq_db'], rows: [[0, 80], [60, 79.9]] });
+    const log = buildLog({
+      metadata: { interval_s: 60 },
+      columns: ['t_s', 'laeq_db'],
+      rows: [
+        [0, 80],
+        [60, 79.9],
+      ],
+    });
     const figures = computeNoiseFigures(prepareNoiseExposure(log), [], 1).asLogged;
     expect(figures.oshaHc.dose! / ((100 * 60) / (32 * 3600))).toBeCloseTo(1, 12);
     expect(figures.oshaPel.dose).toBe(0);
@@ -87,7 +102,14 @@ describe('as-logged and reviewed figures', () => {
 
   test('the run time counts the intervals present, not the pauses', () => {
     // Two 60 s intervals 1 h apart: run time 120 s, LEX with Te = run time.
-    const log = buildLog({ metadata: { interval_s: 60 }, columns: ['t_s', 'laeq_db'], rows: [[0, 95], [3600, 95]] });
+    const log = buildLog({
+      metadata: { interval_s: 60 },
+      columns: ['t_s', 'laeq_db'],
+      rows: [
+        [0, 95],
+        [3600, 95],
+      ],
+    });
     const model = prepareNoiseExposure(log);
     expect(model.runSeconds).toBe(120);
     const figures = computeNoiseFigures(model, [], 120 / 3600).asLogged;
@@ -109,7 +131,9 @@ describe('as-logged and reviewed figures', () => {
   });
 
   test('shift hours change LEX,8h only, never the dose', () => {
-    const model = prepareNoiseExposure(buildLog({ metadata: { interval_s: 60 }, columns: ['t_s', 'laeq_db'], rows: repeat(0, 60).map((_, i) => [i * 60, 92]) }));
+    const model = prepareNoiseExposure(
+      buildLog({ metadata: { interval_s: 60 }, columns: ['t_s', 'laeq_db'], rows: repeat(0, 60).map((_, i) => [i * 60, 92]) }),
+    );
     const eight = computeNoiseFigures(model, [], 8).asLogged;
     const twelve = computeNoiseFigures(model, [], 12).asLogged;
     expect(twelve.oshaPel).toEqual(eight.oshaPel);

@@ -86,7 +86,18 @@ describe('reading a valid noise log', () => {
   });
 
   test('blank lines and free comments are ignored; other metadata keys are kept as text', () => {
-    const text = ['# noise-log: 1', '# exported by the field team', '# Site: Ridgeback sawmill', '# interval_s: 0.5', '', 't_s,laeq_db', '0,80', '', '0.5,81', ''].join('\n');
+    const text = [
+      '# noise-log: 1',
+      '# exported by the field team',
+      '# Site: Ridgeback sawmill',
+      '# interval_s: 0.5',
+      '',
+      't_s,laeq_db',
+      '0,80',
+      '',
+      '0.5,81',
+      '',
+    ].join('\n');
     const log = parseNoiseLog(text);
     expect(log.length).toBe(2);
     expect(log.metadata.other).toEqual({ site: 'Ridgeback sawmill' });
@@ -196,13 +207,27 @@ describe('malformed noise logs give a clear error naming the row and the column'
     ['a header and no data', file(), null, null, null, /no data rows after the header on row 3/],
     ['metadata and no header', '# noise-log: 1\n# interval_s: 1\n', null, null, null, /no header row/],
     ['a metadata key given twice', '# noise-log: 1\n# interval_s: 1\n# interval_s: 2\n', 3, null, 'interval_s', /appears twice \(first on row 2\)/],
-    ['a start without a UTC offset', '# noise-log: 1\n# interval_s: 1\n# start: 2025-03-04 06:30\nt_s,laeq_db\n', 3, null, 'start', /ISO 8601 date-time with offset/],
+    [
+      'a start without a UTC offset',
+      '# noise-log: 1\n# interval_s: 1\n# start: 2025-03-04 06:30\nt_s,laeq_db\n',
+      3,
+      null,
+      'start',
+      /ISO 8601 date-time with offset/,
+    ],
     ['shift hours of 0', '# noise-log: 1\n# interval_s: 1\n# shift_hours: 0\n', 3, null, 'shift_hours', /out of range/],
     ['an unbalanced quote', file('0,"80,100'), 4, null, null, /unbalanced quote/],
     ['old Mac line ends (CR only)', '# noise-log: 1\r# interval_s: 1\rt_s,laeq_db\r0,80\r', 1, null, null, /bare carriage return/],
     ['a UTF-16 file (byte-order mark)', utf16(file('0,80,100')), 1, null, null, /UTF-16/],
     ['UTF-16 text read as UTF-8', '\u0000#\u0000 \u0000n\u0000o\u0000i\u0000s\u0000e', 1, null, null, /not UTF-8 text/],
-    ['bytes that are not UTF-8', new Uint8Array([...new TextEncoder().encode(file('0,80,100', '1,80,100')), 0x0a, 0xff, 0x31]), 6, null, null, /not valid UTF-8/],
+    [
+      'bytes that are not UTF-8',
+      new Uint8Array([...new TextEncoder().encode(file('0,80,100', '1,80,100')), 0x0a, 0xff, 0x31]),
+      6,
+      null,
+      null,
+      /not valid UTF-8/,
+    ],
   ];
 
   test.each(cases)('%s', (_name, input, row, column, metadataKey, message) => {

@@ -71,21 +71,39 @@ describe('motion from acceleration (no moving column)', () => {
 
   test('a change of the mean vector of exactly 30 mg is motion; 29.9 mg is not; the first interval never is', () => {
     // (0,0,1000) → (18,24,1000): |Δ| = √(18² + 24²) = 30 mg exactly; then (18,24,1029.9): |Δ| = 29.9 mg.
-    const motion = detectMotion(accelerationLog([[0, 0, 1000], [18, 24, 1000], [18, 24, 1029.9]]), 30)!;
+    const motion = detectMotion(
+      accelerationLog([
+        [0, 0, 1000],
+        [18, 24, 1000],
+        [18, 24, 1029.9],
+      ]),
+      30,
+    )!;
     expect(motion.source).toBe('acceleration');
     expect([...motion.moving]).toEqual([0, 1, 0]);
   });
 
   test('the change is measured from the previous interval, not from the first', () => {
     // Slow drift: 20 mg per interval never reaches 30 mg between neighbours.
-    const motion = detectMotion(accelerationLog([[0, 0, 1000], [20, 0, 1000], [40, 0, 1000], [60, 0, 1000]]), 30)!;
+    const motion = detectMotion(
+      accelerationLog([
+        [0, 0, 1000],
+        [20, 0, 1000],
+        [40, 0, 1000],
+        [60, 0, 1000],
+      ]),
+      30,
+    )!;
     expect([...motion.moving]).toEqual([0, 0, 0, 0]);
   });
 
   test('a moving column takes precedence over acceleration', () => {
     const log = buildLog({
       columns: ['t_s', 'laeq_db', 'ax_mg', 'ay_mg', 'az_mg', 'moving'],
-      rows: [[0, 85, 0, 0, 1000, 1], [1, 85, 500, 0, 1000, 0]],
+      rows: [
+        [0, 85, 0, 0, 1000, 1],
+        [1, 85, 500, 0, 1000, 0],
+      ],
     });
     const motion = detectMotion(log, 30)!;
     expect(motion.source).toBe('moving-column');
@@ -93,7 +111,13 @@ describe('motion from acceleration (no moving column)', () => {
   });
 
   test('with neither a moving column nor acceleration the wear check is unavailable', () => {
-    const log = buildLog({ columns: ['t_s', 'laeq_db', 'apeak_mg'], rows: [[0, 85, 5000], [1, 85, 1000]] });
+    const log = buildLog({
+      columns: ['t_s', 'laeq_db', 'apeak_mg'],
+      rows: [
+        [0, 85, 5000],
+        [1, 85, 1000],
+      ],
+    });
     const wear = runWearCheck(log, defaultNoiseSettings);
     expect(wear).toMatchObject({ available: false, stillStretches: null, knocks: null, proposedMasks: [] });
     const result = analyzeNoiseLog(log);
@@ -121,9 +145,15 @@ describe('knocks and proposed masks', () => {
     peaks[0] = 4500;
     peaks[19] = 6000;
     const wear = runWearCheck(knockLog(peaks), defaultNoiseSettings);
-    expect(wear.knocks!.map(({ tS, peakMg }) => ({ tS, peakMg }))).toEqual([{ tS: 0, peakMg: 4500 }, { tS: 19, peakMg: 6000 }]);
+    expect(wear.knocks!.map(({ tS, peakMg }) => ({ tS, peakMg }))).toEqual([
+      { tS: 0, peakMg: 4500 },
+      { tS: 19, peakMg: 6000 },
+    ]);
     // 2 s before the start (clipped to 0) to 3 s after the end (0 + 1 + 3 = 4); 17 to 23 clipped to 20.
-    expect(wear.proposedMasks.map(({ startS, endS }) => [startS, endS])).toEqual([[0, 4], [17, 20]]);
+    expect(wear.proposedMasks.map(({ startS, endS }) => [startS, endS])).toEqual([
+      [0, 4],
+      [17, 20],
+    ]);
     expect(wear.proposedMasks[0].reason).toMatch(/knock: 4500 mg/);
   });
 

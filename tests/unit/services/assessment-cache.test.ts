@@ -30,10 +30,22 @@ describe('canonical JSON and the data hash', () => {
   it('the hash ignores result ids but changes with a value, the OEL or a setting', () => {
     const base = assessmentDataHash({ results: [result(1, 0.5), result(2, 0.7)], oel: 1, actionLevel: null, settings });
     expect(base).toMatch(/^[0-9a-f]{64}$/);
-    expect(assessmentDataHash({ results: [{ ...result(1, 0.5), id: 91 }, { ...result(2, 0.7), id: 92 }], oel: 1, actionLevel: null, settings })).toBe(base);
+    expect(
+      assessmentDataHash({
+        results: [
+          { ...result(1, 0.5), id: 91 },
+          { ...result(2, 0.7), id: 92 },
+        ],
+        oel: 1,
+        actionLevel: null,
+        settings,
+      }),
+    ).toBe(base);
     expect(assessmentDataHash({ results: [result(1, 0.5), result(2, 0.71)], oel: 1, actionLevel: null, settings })).not.toBe(base);
     expect(assessmentDataHash({ results: [result(1, 0.5), result(2, 0.7)], oel: 2, actionLevel: null, settings })).not.toBe(base);
-    expect(assessmentDataHash({ results: [result(1, 0.5), result(2, 0.7)], oel: 1, actionLevel: null, settings: { ...settings, prior: 'gsd-informative' } })).not.toBe(base);
+    expect(
+      assessmentDataHash({ results: [result(1, 0.5), result(2, 0.7)], oel: 1, actionLevel: null, settings: { ...settings, prior: 'gsd-informative' } }),
+    ).not.toBe(base);
   });
 });
 

@@ -17,7 +17,11 @@ describe('candidate worker-shifts', () => {
       { workerId: 1, workerCode: 'A-1', date: '2025-01-06' },
       { workerId: 2, workerCode: 'A-2', date: '2025-01-06' },
     ]);
-    expect(candidates.filter((candidate) => candidate.workerCode === 'A-2').map((candidate) => candidate.date)).toEqual(['2025-01-06', '2025-01-07', '2025-01-08']);
+    expect(candidates.filter((candidate) => candidate.workerCode === 'A-2').map((candidate) => candidate.date)).toEqual([
+      '2025-01-06',
+      '2025-01-07',
+      '2025-01-08',
+    ]);
     expect(candidates.some((candidate) => candidate.date === '2025-01-11' || candidate.date === '2025-01-12')).toBe(false);
   });
 
@@ -56,7 +60,8 @@ describe('drawing worker-shifts', () => {
     // negligible probability and a biased one (e.g. always the first candidates) breaks at once.
     const counts = new Map<string, number>();
     for (let seed = 1; seed <= 2000; seed++) {
-      for (const shift of drawShifts(candidates, 6, seed)) counts.set(`${shift.workerId}|${shift.date}`, (counts.get(`${shift.workerId}|${shift.date}`) ?? 0) + 1);
+      for (const shift of drawShifts(candidates, 6, seed))
+        counts.set(`${shift.workerId}|${shift.date}`, (counts.get(`${shift.workerId}|${shift.date}`) ?? 0) + 1);
     }
     expect(counts.size).toBe(20);
     for (const count of counts.values()) expect(Math.abs(count - 600)).toBeLessThan(103);

@@ -50,7 +50,9 @@ describe('assessGroup refusals (issue 3, "Inputs and refusals")', () => {
   });
 
   it(`refuses a GSD above ${ASSESSMENT_RULES.maxGsd} and values outside 1e-15 to 1e15 as unit or grouping errors`, () => {
-    expect(() => assessGroup({ values: detected([1e-4, 1, 1e4]), oel: 1 })).toThrow(/the GSD is 10000, above 100 \(rule: spread too wide for one exposure group\)/);
+    expect(() => assessGroup({ values: detected([1e-4, 1, 1e4]), oel: 1 })).toThrow(
+      /the GSD is 10000, above 100 \(rule: spread too wide for one exposure group\)/,
+    );
     expect(() => assessGroup({ values: detected([1e-16, 1, 2]), oel: 1 })).toThrow(/outside 1e-15 to 1e15; check the unit/);
   });
 });

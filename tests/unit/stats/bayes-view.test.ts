@@ -135,7 +135,11 @@ describe('priors', () => {
   });
 
   test('the informative GSD prior pulls a 3-result GSD toward its median and is recorded with its parameters', () => {
-    const data: ShiftValue[] = [{ value: 1, nonDetect: false }, { value: 1.1, nonDetect: false }, { value: 0.95, nonDetect: false }];
+    const data: ShiftValue[] = [
+      { value: 1, nonDetect: false },
+      { value: 1.1, nonDetect: false },
+      { value: 0.95, nonDetect: false },
+    ];
     const reference = bayesianView(data, { settings: FAST });
     const informed = bayesianView(data, { prior: { kind: 'informative-gsd' }, settings: FAST });
     expect(informed.gsd.median).toBeGreaterThan(reference.gsd.median);
@@ -176,10 +180,40 @@ describe('priors', () => {
 describe('refusals', () => {
   test.each([
     ['fewer than 2 results', [{ value: 1, nonDetect: false }], /at least 2 results/],
-    ['a value that is not a positive number', [{ value: 1, nonDetect: false }, { value: -2, nonDetect: false }], /result 2: value must be a finite number > 0/],
-    ['a single detected result', [{ value: 1, nonDetect: false }, { value: 0.5, nonDetect: true }, { value: 0.5, nonDetect: true }], /at least 2 detected results with different values/],
-    ['equal detected results', [{ value: 1, nonDetect: false }, { value: 1, nonDetect: false }], /different values/],
-    ['an interval whose lower bound is not below the value', [{ value: 1, nonDetect: false }, { value: 2, nonDetect: false }, { value: 1, nonDetect: true, lower: 1 }], /result 3: interval lower bound/],
+    [
+      'a value that is not a positive number',
+      [
+        { value: 1, nonDetect: false },
+        { value: -2, nonDetect: false },
+      ],
+      /result 2: value must be a finite number > 0/,
+    ],
+    [
+      'a single detected result',
+      [
+        { value: 1, nonDetect: false },
+        { value: 0.5, nonDetect: true },
+        { value: 0.5, nonDetect: true },
+      ],
+      /at least 2 detected results with different values/,
+    ],
+    [
+      'equal detected results',
+      [
+        { value: 1, nonDetect: false },
+        { value: 1, nonDetect: false },
+      ],
+      /different values/,
+    ],
+    [
+      'an interval whose lower bound is not below the value',
+      [
+        { value: 1, nonDetect: false },
+        { value: 2, nonDetect: false },
+        { value: 1, nonDetect: true, lower: 1 },
+      ],
+      /result 3: interval lower bound/,
+    ],
   ] as const)('%s is refused with a RangeError naming the rule', (_name, data, message) => {
     expect(() => bayesianView(data as readonly ShiftValue[], { oel: 1 })).toThrow(RangeError);
     expect(() => bayesianView(data as readonly ShiftValue[], { oel: 1 })).toThrow(message);

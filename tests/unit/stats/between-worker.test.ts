@@ -20,7 +20,17 @@ function workers(seed: number, spec: [string, number, number][], gsdWithin = 1.8
 
 describe('betweenWorkerAnalysis', () => {
   test('a worker 8-fold above similar colleagues is flagged, with the reason; the colleagues are not', () => {
-    const data = workers(1, [['RT-011', 5, 1], ['RT-012', 5, 1.1], ['RT-013', 5, 0.9], ['RT-014', 5, 1.05], ['RT-015', 5, 8]], 1.5);
+    const data = workers(
+      1,
+      [
+        ['RT-011', 5, 1],
+        ['RT-012', 5, 1.1],
+        ['RT-013', 5, 0.9],
+        ['RT-014', 5, 1.05],
+        ['RT-015', 5, 8],
+      ],
+      1.5,
+    );
     const result = betweenWorkerAnalysis(data, { oel: 5 });
     const flagged = result.workerSummaries.filter((w) => w.flagged);
     expect(flagged.map((w) => w.worker)).toEqual(['RT-015']);
@@ -29,7 +39,12 @@ describe('betweenWorkerAnalysis', () => {
   });
 
   test('with no real differences between workers nobody is flagged and the between-worker GSD is near 1', () => {
-    const data = workers(2, [['A', 6, 2], ['B', 6, 2], ['C', 6, 2], ['D', 6, 2]]);
+    const data = workers(2, [
+      ['A', 6, 2],
+      ['B', 6, 2],
+      ['C', 6, 2],
+      ['D', 6, 2],
+    ]);
     const result = betweenWorkerAnalysis(data, { oel: 10 });
     expect(result.workerSummaries.some((w) => w.flagged)).toBe(false);
     expect(result.betweenGsd).toBeLessThan(1.5);
@@ -37,7 +52,13 @@ describe('betweenWorkerAnalysis', () => {
   });
 
   test('the probability that a worker mean exceeds the OEL follows 1 − Φ[(ln OEL − μ − σw²/2)/σb] and moves with the OEL', () => {
-    const data = workers(3, [['A', 4, 1], ['B', 4, 3], ['C', 4, 0.5], ['D', 4, 2], ['E', 4, 6]]);
+    const data = workers(3, [
+      ['A', 4, 1],
+      ['B', 4, 3],
+      ['C', 4, 0.5],
+      ['D', 4, 2],
+      ['E', 4, 6],
+    ]);
     const low = betweenWorkerAnalysis(data, { oel: 1 }).probabilityWorkerMeanAboveOel!;
     const high = betweenWorkerAnalysis(data, { oel: 50 }).probabilityWorkerMeanAboveOel!;
     expect(low).toBeGreaterThan(high);
@@ -48,7 +69,10 @@ describe('betweenWorkerAnalysis', () => {
 
   test('results without a worker code and workers with one result are left out and counted; non-detects are substituted and counted', () => {
     const data: ShiftValue[] = [
-      ...workers(4, [['A', 3, 1], ['B', 3, 2]]),
+      ...workers(4, [
+        ['A', 3, 1],
+        ['B', 3, 2],
+      ]),
       { value: 1, nonDetect: false },
       { value: 1.5, nonDetect: false, worker: 'C' },
       { value: 0.2, nonDetect: true, worker: 'A' },
@@ -61,8 +85,25 @@ describe('betweenWorkerAnalysis', () => {
   });
 
   test.each([
-    ['fewer than 2 workers with 2 or more results', [{ value: 1, nonDetect: false, worker: 'A' }, { value: 2, nonDetect: false, worker: 'A' }, { value: 1, nonDetect: false, worker: 'B' }], /needs at least 2 workers with 2 or more results each, got 1/],
-    ['identical results within every worker', [{ value: 1, nonDetect: false, worker: 'A' }, { value: 1, nonDetect: false, worker: 'A' }, { value: 2, nonDetect: false, worker: 'B' }, { value: 2, nonDetect: false, worker: 'B' }], /within-worker variation cannot be estimated/],
+    [
+      'fewer than 2 workers with 2 or more results',
+      [
+        { value: 1, nonDetect: false, worker: 'A' },
+        { value: 2, nonDetect: false, worker: 'A' },
+        { value: 1, nonDetect: false, worker: 'B' },
+      ],
+      /needs at least 2 workers with 2 or more results each, got 1/,
+    ],
+    [
+      'identical results within every worker',
+      [
+        { value: 1, nonDetect: false, worker: 'A' },
+        { value: 1, nonDetect: false, worker: 'A' },
+        { value: 2, nonDetect: false, worker: 'B' },
+        { value: 2, nonDetect: false, worker: 'B' },
+      ],
+      /within-worker variation cannot be estimated/,
+    ],
     ['a value that is not a positive number', [{ value: 0, nonDetect: false, worker: 'A' }], /result 1: value must be a finite number > 0/],
   ] as const)('%s is refused with a RangeError naming the rule', (_name, data, message) => {
     expect(() => betweenWorkerAnalysis(data as readonly ShiftValue[])).toThrow(RangeError);

@@ -1,10 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  censoredLognormalMle,
-  censoredNormalLogLikelihood,
-  censoredNormalMle,
-  censoredNormalMleEstimate,
-} from '../../../stats/censored-mle';
+import { censoredLognormalMle, censoredNormalLogLikelihood, censoredNormalMle, censoredNormalMleEstimate } from '../../../stats/censored-mle';
 
 // Hand-made sample: logs with two detection limits (several detected values lie between them).
 const detected = [-1.2, -0.4, 0.1, 0.35, 0.9, 1.6, -0.8, 0.05];
@@ -21,7 +16,7 @@ describe('censoredNormalMle', () => {
     expect(fit.standardErrorLogSigma).toBeCloseTo(Math.sqrt(1 / 6), 12);
   });
 
-  it('reaches the same maximum from far-off starting points (the likelihood is concave in Olsen\'s parameters)', () => {
+  it("reaches the same maximum from far-off starting points (the likelihood is concave in Olsen's parameters)", () => {
     const reference = censoredNormalMle(detected, censoredBelow);
     for (const start of [
       { mu: 25, sigma: 0.01 },
@@ -89,9 +84,13 @@ describe('censoredNormalMle', () => {
   });
 
   it('refuses a shift result or detection limit that is not > 0, naming the result', () => {
-    expect(() => censoredLognormalMle([{ value: 1, nonDetect: false }, { value: 2, nonDetect: false }, { value: 0, nonDetect: true }])).toThrow(
-      /censoredLognormalMle: result 3 has detection limit 0; it must be a finite number > 0/,
-    );
+    expect(() =>
+      censoredLognormalMle([
+        { value: 1, nonDetect: false },
+        { value: 2, nonDetect: false },
+        { value: 0, nonDetect: true },
+      ]),
+    ).toThrow(/censoredLognormalMle: result 3 has detection limit 0; it must be a finite number > 0/);
     expect(() => censoredLognormalMle([{ value: -1, nonDetect: false }])).toThrow(/result 1 has value -1/);
   });
 });

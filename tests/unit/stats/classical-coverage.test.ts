@@ -30,7 +30,7 @@ function simulate(n: number, gsd: number, trueExceedance: number, seed: number):
   const trueMean = Math.exp(mu + (sigma * sigma) / 2);
   // The OEL that this true exceedance fraction implies: 1 − Φ((ln OEL − μ)/σ) = F.
   let z = 0;
-  for (let step = 0; step < 100; step++) z += (normalCdf(-z) - trueExceedance) / Math.exp(-0.5 * z * z) * Math.sqrt(2 * Math.PI);
+  for (let step = 0; step < 100; step++) z += ((normalCdf(-z) - trueExceedance) / Math.exp(-0.5 * z * z)) * Math.sqrt(2 * Math.PI);
   const oel = Math.exp(mu + z * sigma);
   const k = toleranceFactor(n);
   let utl = 0;

@@ -79,7 +79,12 @@ describe('EN 689:2018 tests', () => {
   it('gives the reassessment interval by GM/OELV only when compliant (36/24/18/12 months, from memory)', () => {
     expect([0.05, 0.2, 0.4, 0.6].map((gm) => en689ReassessmentMonths(gm, 1))).toEqual([36, 24, 18, 12]);
     const values = detected([0.01, 0.02, 0.015]);
-    expect(en689Assessment(values, logScaleSummary([0.01, 0.02, 0.015]), 1)).toMatchObject({ test: 'preliminary', result: 'compliant', reassessmentMonths: 36, ur: null });
+    expect(en689Assessment(values, logScaleSummary([0.01, 0.02, 0.015]), 1)).toMatchObject({
+      test: 'preliminary',
+      result: 'compliant',
+      reassessmentMonths: 36,
+      ur: null,
+    });
     const high = detected([0.5, 2, 0.8]);
     expect(en689Assessment(high, logScaleSummary([0.5, 2, 0.8]), 1)).toMatchObject({ result: 'non-compliant', reassessmentMonths: null });
   });
@@ -106,7 +111,16 @@ describe('descriptive statistics', () => {
     expect(medianOfSorted([1, 2, 9])).toBe(2);
     expect(medianOfSorted([1, 2, 4, 9])).toBe(3);
     const withNd = describeShiftValues([{ value: 0.05, nonDetect: true }, { value: 3, nonDetect: true }, ...detected([0.2, 2])], { oel: 1 });
-    expect(withNd).toMatchObject({ n: 4, nonDetects: 2, minimum: 0.2, maximum: 2, arithmeticMean: null, geometricMean: null, countAboveOel: 1, nonDetectsAboveOel: 1 });
+    expect(withNd).toMatchObject({
+      n: 4,
+      nonDetects: 2,
+      minimum: 0.2,
+      maximum: 2,
+      arithmeticMean: null,
+      geometricMean: null,
+      countAboveOel: 1,
+      nonDetectsAboveOel: 1,
+    });
     expect(withNd.detectionLimits).toEqual({ lowest: 0.05, highest: 3 });
   });
 

@@ -99,10 +99,7 @@ describe('properties of the classical engine (fast-check)', () => {
       .filter(({ detectedLogs, limitLogs }) => limitLogs.length / (limitLogs.length + detectedLogs.length) <= 0.8);
     fc.assert(
       fc.property(withNonDetects, logOel, ({ detectedLogs, limitLogs }, lnOel) => {
-        const values: ShiftValue[] = [
-          ...detected(detectedLogs),
-          ...limitLogs.map((y) => ({ value: Math.exp(y), nonDetect: true })),
-        ];
+        const values: ShiftValue[] = [...detected(detectedLogs), ...limitLogs.map((y) => ({ value: Math.exp(y), nonDetect: true }))];
         let assessment: GroupAssessment;
         try {
           assessment = assessGroup({ values, oel: Math.exp(lnOel), seed: 7 });
@@ -121,13 +118,11 @@ describe('properties of the classical engine (fast-check)', () => {
   it('refuses every invalid group with a RangeError that names the rule', () => {
     const invalid = fc.oneof(
       fc.array(logValue, { minLength: 0, maxLength: 2 }).map((logs) => ({ values: detected(logs), rule: /fewer than 3 results/ })),
-      fc
-        .tuple(logSets, fc.constantFrom(0, -1, Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY), fc.nat())
-        .map(([logs, bad, at]) => {
-          const values = detected(logs);
-          values[at % values.length] = { value: bad, nonDetect: false };
-          return { values, rule: /must be a number greater than 0/ };
-        }),
+      fc.tuple(logSets, fc.constantFrom(0, -1, Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY), fc.nat()).map(([logs, bad, at]) => {
+        const values = detected(logs);
+        values[at % values.length] = { value: bad, nonDetect: false };
+        return { values, rule: /must be a number greater than 0/ };
+      }),
       fc
         .tuple(fc.integer({ min: 3, max: 20 }), fc.double({ min: 1e-3, max: 1e3, noNaN: true }))
         .map(([n, value]) => ({ values: Array.from({ length: n }, () => ({ value, nonDetect: false })), rule: /all values equal/ })),

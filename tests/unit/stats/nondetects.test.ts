@@ -1,11 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  censoredLimits,
-  checkNondetectSample,
-  fitWithNondetects,
-  NONDETECT_RULES,
-  simulationLogLimits,
-} from '../../../stats/nondetects';
+import { censoredLimits, checkNondetectSample, fitWithNondetects, NONDETECT_RULES, simulationLogLimits } from '../../../stats/nondetects';
 import { censoredLognormalMle } from '../../../stats/censored-mle';
 import { robustRos } from '../../../stats/ros';
 import { createRandom } from '../../../stats/random';
@@ -25,9 +19,7 @@ function simulated(n: number, seed: number, limit: number): ShiftValue[] {
 }
 
 // 12 results, 4 non-detects at 0.05 (33 %).
-const small = [0.05, 0.21, 0.05, 0.09, 0.33, 0.05, 0.12, 0.6, 0.05, 0.15, 0.08, 1.1].map((v, i) =>
-  [0, 2, 5, 8].includes(i) ? below(v) : detect(v),
-);
+const small = [0.05, 0.21, 0.05, 0.09, 0.33, 0.05, 0.12, 0.6, 0.05, 0.15, 0.08, 1.1].map((v, i) => ([0, 2, 5, 8].includes(i) ? below(v) : detect(v)));
 
 describe('fitWithNondetects refuses data the rules exclude, naming the rule', () => {
   it('fewer than 3 results', () => {
@@ -127,7 +119,9 @@ describe('fitWithNondetects chooses the method by the documented rules', () => {
       expect(point.nonDetect).toBe(small[i].nonDetect);
       if (!point.nonDetect) expect(point.value).toBe(small[i].value);
     });
-    const imputed = robustRos(small).points.filter((p) => p.nonDetect).map((p) => p.estimate);
+    const imputed = robustRos(small)
+      .points.filter((p) => p.nonDetect)
+      .map((p) => p.estimate);
     expect(ros.plottingPositions!.filter((p) => p.nonDetect).map((p) => p.value)).toEqual(imputed);
 
     const values = simulated(60, 4711, 0.07);

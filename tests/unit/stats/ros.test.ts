@@ -89,9 +89,12 @@ describe('robustRos', () => {
     expect(() => robustRos([...sample.slice(0, 3), { value: 0, nonDetect: true }])).toThrow(
       /robustRos: result 4 has detection limit 0; it must be a finite number > 0/,
     );
-    expect(() => robustRos([{ value: 1, nonDetect: false }, { value: 0.5, nonDetect: true }])).toThrow(
-      /robustRos: needs at least 2 detected values to fit the line, got 1/,
-    );
+    expect(() =>
+      robustRos([
+        { value: 1, nonDetect: false },
+        { value: 0.5, nonDetect: true },
+      ]),
+    ).toThrow(/robustRos: needs at least 2 detected values to fit the line, got 1/);
     expect(() => robustRosLogs([0.3, 0.3, 0.3], [0])).toThrow(/robustRosLogs: the detected values are all equal/);
   });
 });

@@ -82,8 +82,12 @@ describe('shift TWA from sample periods', () => {
     expect(() => shiftTwa([{ concentration: 1, minutes: 0, nonDetect: false }], { assumption: 'zero', shiftMinutes: 480 })).toThrow(
       'shiftTwa: period 1 must last more than 0 minutes, got 0',
     );
-    expect(() => shiftTwa([{ concentration: -1, minutes: 10, nonDetect: false }], { assumption: 'zero', shiftMinutes: 480 })).toThrow(/period 1 needs a concentration ≥ 0/);
-    expect(() => shiftTwa([{ concentration: 0, minutes: 10, nonDetect: true }], { assumption: 'zero', shiftMinutes: 480 })).toThrow(/a detection limit > 0 for a non-detect/);
+    expect(() => shiftTwa([{ concentration: -1, minutes: 10, nonDetect: false }], { assumption: 'zero', shiftMinutes: 480 })).toThrow(
+      /period 1 needs a concentration ≥ 0/,
+    );
+    expect(() => shiftTwa([{ concentration: 0, minutes: 10, nonDetect: true }], { assumption: 'zero', shiftMinutes: 480 })).toThrow(
+      /a detection limit > 0 for a non-detect/,
+    );
     expect(() => shiftTwa(periods, { assumption: 'zero', shiftMinutes: 0 })).toThrow('shiftTwa: shiftMinutes must be a number above 0 and at most 1440, got 0');
   });
 });

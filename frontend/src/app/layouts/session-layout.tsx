@@ -113,6 +113,9 @@ function Sidebar({ me, onSigningOut }: { me: Me; onSigningOut: () => void }) {
         <div className="min-w-0">
           <p className="truncate text-sm font-medium text-white">{me.user.name}</p>
           <p className="truncate text-xs text-slate-400">{me.user.email}</p>
+          <NavLink to="/account/notifications" className="text-xs text-slate-300 underline-offset-2 hover:text-white hover:underline">
+            Notification settings
+          </NavLink>
         </div>
         <button
           type="button"

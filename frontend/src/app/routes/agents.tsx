@@ -5,6 +5,7 @@ import { AgentForm } from '@frontend/features/agents/components/agent-form';
 import { AgentsTable } from '@frontend/features/agents/components/agents-table';
 import { OelEntriesTable } from '@frontend/features/agents/components/oel-entries-table';
 import { OelEntryForm } from '@frontend/features/agents/components/oel-entry-form';
+import { MixturesSection } from '@frontend/features/mixtures/components/mixtures-section';
 import { Button } from '@frontend/components/button';
 import { Dialog } from '@frontend/components/dialog';
 import { DocumentTitle } from '@frontend/components/document-title';
@@ -28,7 +29,11 @@ export function Component() {
   const organizationId = membership.organizationKey;
   const canEdit = useCanEdit();
   const agentParams = useListParams({ defaultSort: 'name', sortFields: ['name', 'kind', 'casNumber', 'createdAt', 'updatedAt'] });
-  const oelParams = useListParams({ prefix: 'oel.', defaultSort: 'agentName', sortFields: ['agentName', 'source', 'value', 'unit', 'averagingTime', 'createdAt'] });
+  const oelParams = useListParams({
+    prefix: 'oel.',
+    defaultSort: 'agentName',
+    sortFields: ['agentName', 'source', 'value', 'unit', 'averagingTime', 'createdAt'],
+  });
   const agents = useAgents(organizationId, listQueryString(agentParams, ['archived', 'kind']));
   const entries = useOelEntries(organizationId, listQueryString(oelParams, ['archived', 'agentId']));
   const choices = useAgentChoices(organizationId);
@@ -46,7 +51,11 @@ export function Component() {
         title="Agents & OELs"
         description="What people are exposed to, and the limits your organization judges exposure against. A group copies its limit when it takes it."
       />
-      {saved && <Notice tone="success" className="mb-4">{saved}</Notice>}
+      {saved && (
+        <Notice tone="success" className="mb-4">
+          {saved}
+        </Notice>
+      )}
 
       <section aria-labelledby="agents-title" className="mb-10 space-y-3">
         <div className="flex flex-wrap items-end justify-between gap-3">
@@ -64,7 +73,15 @@ export function Component() {
         </ListToolbar>
         <QueryState query={agents} loading="Loading agents…" errorTitle="Could not load the agents">
           {(page) => (
-            <AgentsTable organizationId={organizationId} page={page} params={agentParams} busy={agents.isPlaceholderData} canEdit={canEdit} onEdit={setEditingAgent} onOutcome={setSaved} />
+            <AgentsTable
+              organizationId={organizationId}
+              page={page}
+              params={agentParams}
+              busy={agents.isPlaceholderData}
+              canEdit={canEdit}
+              onEdit={setEditingAgent}
+              onOutcome={setSaved}
+            />
           )}
         </QueryState>
       </section>
@@ -88,10 +105,20 @@ export function Component() {
         </ListToolbar>
         <QueryState query={entries} loading="Loading the OEL list…" errorTitle="Could not load the OEL list">
           {(page) => (
-            <OelEntriesTable organizationId={organizationId} page={page} params={oelParams} busy={entries.isPlaceholderData} canEdit={canEdit} onEdit={setEditingEntry} onOutcome={setSaved} />
+            <OelEntriesTable
+              organizationId={organizationId}
+              page={page}
+              params={oelParams}
+              busy={entries.isPlaceholderData}
+              canEdit={canEdit}
+              onEdit={setEditingEntry}
+              onOutcome={setSaved}
+            />
           )}
         </QueryState>
       </section>
+
+      <MixturesSection organizationId={organizationId} canEdit={canEdit} chemicals={(choices.data?.items ?? []).filter((agent) => agent.kind === 'chemical')} />
 
       <Dialog open={editingAgent !== null} onClose={() => setEditingAgent(null)} title={editingAgent === 'new' ? 'Add an agent' : 'Edit agent'}>
         <AgentForm

@@ -31,7 +31,11 @@ export function Component() {
   return (
     <>
       <DocumentTitle title="Draft a decision record" />
-      <PageHeader eyebrow="Decision records" title="Draft a decision record" description="An analyst who did not draft it approves it or returns it with a comment. Approval freezes the data and figures shown here." />
+      <PageHeader
+        eyebrow="Decision records"
+        title="Draft a decision record"
+        description="An analyst who did not draft it approves it or returns it with a comment. Approval freezes the data and figures shown here."
+      />
       {proposal.isPending && <LoadingState label="Computing the figures this draft starts from…" />}
       {proposal.isError && <ErrorState title="Could not compute the figures for a draft" error={proposal.error} onRetry={() => proposal.refetch()} />}
       {proposal.data && (
@@ -50,7 +54,8 @@ export function Component() {
             <div className="rounded-md border border-slate-200 bg-white p-3">
               <KeyFigures figures={proposal.data} caption="Figures approval would freeze now" />
               <p className="mt-2 text-xs text-slate-600">
-                Data hash <code className="break-all">{proposal.data.dataHash.slice(0, 16)}…</code> · results left out: {proposal.data.excludedIds.length === 0 ? 'none' : proposal.data.excludedIds.join(', ')}
+                Data hash <code className="break-all">{proposal.data.dataHash.slice(0, 16)}…</code> · results left out:{' '}
+                {proposal.data.excludedIds.length === 0 ? 'none' : proposal.data.excludedIds.join(', ')}
               </p>
             </div>
             <div className="rounded-md border border-slate-200 bg-white p-3 text-sm">

@@ -7,6 +7,7 @@ import { useReviewDecision } from '@frontend/features/decision-records/api/revie
 import { useUpdateDecisionDraft } from '@frontend/features/decision-records/api/update-decision-draft';
 import { DecisionJudgement, DecisionStatusBadge, OutOfDateMarker } from '@frontend/features/decision-records/components/decision-badges';
 import { DraftForm } from '@frontend/features/decision-records/components/draft-form';
+import { EvidencePackLinks } from '@frontend/features/decision-records/components/evidence-pack-links';
 import { FrozenDetails } from '@frontend/features/decision-records/components/frozen-details';
 import { KeyFigures } from '@frontend/features/decision-records/components/key-figures';
 import { AcknowledgePanel, CommentsPanel, ReviewPanel } from '@frontend/features/decision-records/components/review-panel';
@@ -38,7 +39,12 @@ export function Component() {
   const open = record?.status === 'draft' || record?.status === 'returned';
   // Only roles that run statistics may compute a draft's figures (the proposal endpoint needs stats:run).
   const canRun = can(membership.role, 'stats:run');
-  const pending = useDecisionProposal(organizationId, String(record?.exposureGroupId ?? ''), record?.exclusions.map((exclusion) => exclusion.resultId) ?? [], Boolean(open && canRun));
+  const pending = useDecisionProposal(
+    organizationId,
+    String(record?.exposureGroupId ?? ''),
+    record?.exclusions.map((exclusion) => exclusion.resultId) ?? [],
+    Boolean(open && canRun),
+  );
   const live = open && canRun ? pending : null;
   const isDrafter = record?.drafter.id === me.user.id;
   const groupBase = record ? `/orgs/${encodeURIComponent(organizationId)}/exposure-groups/${record.exposureGroupId}` : '';
@@ -69,8 +75,8 @@ export function Component() {
         <div className="space-y-5">
           {record.outOfDate && (
             <Notice tone="warning" title="Out of date">
-              The group's results changed after this record was approved (data version {record.dataVersionAtApproval} → {record.groupDataVersion}). The record stays as approved; a new
-              record is due.{' '}
+              The group's results changed after this record was approved (data version {record.dataVersionAtApproval} → {record.groupDataVersion}). The record
+              stays as approved; a new record is due.{' '}
               {can(membership.role, 'decision:draft') && <Link to={`${groupBase}/decisions/new`}>Draft a new decision record</Link>}
             </Notice>
           )}
@@ -192,6 +198,9 @@ export function Component() {
             </section>
           )}
 
+          {(record.status === 'approved' || record.status === 'superseded') && can(membership.role, 'evidence:export') && (
+            <EvidencePackLinks organizationId={organizationId} recordId={record.id} />
+          )}
           {record.frozenInputs && <FrozenDetails record={record} />}
           {(record.status === 'approved' || record.status === 'superseded') && (
             <AcknowledgePanel record={record} userId={me.user.id} canAcknowledge={can(membership.role, 'decision:acknowledge')} run={run} />

@@ -4,6 +4,8 @@ import { useGroupOverview } from '@frontend/features/exposure-groups/api/get-gro
 import { useArchiveExposureGroup } from '@frontend/features/exposure-groups/api/update-exposure-group';
 import { GroupDefinition } from '@frontend/features/exposure-groups/components/group-definition';
 import { limitText } from '@frontend/features/exposure-groups/components/oel-text';
+import { GroupProtectorsPanel } from '@frontend/features/hearing-protectors/components/group-protectors-panel';
+import { MixtureResultsPanel } from '@frontend/features/mixtures/components/mixture-results-panel';
 import { PlanSection } from '@frontend/features/sampling-plans/components/plan-section';
 import { GroupResults } from '@frontend/features/shift-results/components/group-results';
 import { GroupMembers } from '@frontend/features/workers/components/group-members';
@@ -60,7 +62,8 @@ export function Component() {
                   <>
                     <Link to={`${base}/exposure-groups`} className="underline">
                       Exposure groups
-                    </Link> · {data.site.name}
+                    </Link>{' '}
+                    · {data.site.name}
                   </>
                 }
                 title={group.name}
@@ -70,6 +73,8 @@ export function Component() {
                     <ButtonLink to={`${base}/exposure-groups/${group.id}/assessment`} variant="primary">
                       Assessment
                     </ButtonLink>
+                    {canSeeNames && <ButtonLink to="worker-letters">Worker letters</ButtonLink>}
+                    {data.agent.kind === 'noise' && <ButtonLink to="noise-estimates">Noise estimate (ISO 9612)</ButtonLink>}
                     {canEdit && !group.archived && <ButtonLink to="edit">Edit group</ButtonLink>}
                     {canEdit && (
                       <ArchiveToggle
@@ -95,6 +100,12 @@ export function Component() {
                 {saved && <Notice tone="success">{saved}</Notice>}
                 {group.archived && <Notice tone="warning">This group is archived: its records are kept and shown, but nothing new can be added.</Notice>}
                 <GroupDefinition overview={data} />
+                {data.agent.kind === 'noise' && (
+                  <GroupProtectorsPanel organizationId={organizationId} groupId={group.id} canEdit={canEdit && !group.archived} />
+                )}
+                {data.agent.kind === 'mixture' && (
+                  <MixtureResultsPanel organizationId={organizationId} groupId={group.id} canEdit={canEdit && !group.archived} />
+                )}
                 <aside aria-label="Cautions" className="rounded-md border border-amber-300/80 bg-amber-50/70 px-4 py-3 text-sm text-amber-950">
                   <ul className="space-y-1">
                     {data.cautions.map((caution) => (

@@ -15,7 +15,9 @@ export function Component() {
       <DocumentTitle title={`Field sheet · ${sheet.data?.group.name ?? 'Sampling plan'}`} />
       {sheet.data && (
         <p className="no-print mb-3 text-sm print:hidden">
-          <Link to={`/orgs/${encodeURIComponent(membership.organizationKey)}/exposure-groups/${sheet.data.group.id}#plan-title`}>← Back to {sheet.data.group.name}</Link>
+          <Link to={`/orgs/${encodeURIComponent(membership.organizationKey)}/exposure-groups/${sheet.data.group.id}#plan-title`}>
+            ← Back to {sheet.data.group.name}
+          </Link>
         </p>
       )}
       <QueryState query={sheet} loading="Loading the field sheet…" errorTitle="Could not load the field sheet">

@@ -110,13 +110,18 @@ export function Component() {
 
       <div className="space-y-5">
         {whatIf && (
-          <WhatIfChanges baseline={baseline.data ?? null} current={assessment && !recomputing ? assessment : null} leftOut={variant.exclude.length} onClear={clearExclusions} />
+          <WhatIfChanges
+            baseline={baseline.data ?? null}
+            current={assessment && !recomputing ? assessment : null}
+            leftOut={variant.exclude.length}
+            onClear={clearExclusions}
+          />
         )}
 
-        {!context && current.isPending && <LoadingState label="Computing the assessment… the Bayesian view and the sample planner take a moment the first time." />}
-        {!context && current.isError && (
-          <ErrorState title="Could not compute the assessment" error={current.error} onRetry={() => current.refetch()} />
+        {!context && current.isPending && (
+          <LoadingState label="Computing the assessment… the Bayesian view and the sample planner take a moment the first time." />
         )}
+        {!context && current.isError && <ErrorState title="Could not compute the assessment" error={current.error} onRetry={() => current.refetch()} />}
         {!context && isApiError(current.error, 400) && whatIf && (
           <Button size="sm" onClick={clearExclusions}>
             Put every result back

@@ -60,7 +60,9 @@ export function Component() {
               Records
             </h2>
             {data.records.length === 0 ? (
-              <EmptyState title="No decision records yet">A hygienist drafts one from the group's assessment; an analyst who did not draft it approves it.</EmptyState>
+              <EmptyState title="No decision records yet">
+                A hygienist drafts one from the group's assessment; an analyst who did not draft it approves it.
+              </EmptyState>
             ) : (
               <DecisionList organizationId={organizationId} records={data.records} caption={`Decision records of ${data.group.name}`} />
             )}

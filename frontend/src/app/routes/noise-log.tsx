@@ -51,11 +51,16 @@ function Review({ log, organizationId, organizationName }: { log: NoiseLogDetail
     <>
       <DocumentTitle title={`Noise log ${log.fileName} · ${organizationName}`} />
       <PageHeader
-        eyebrow={<Link to={`/orgs/${organizationId}/noise-logs`} className="hover:underline">Noise logs</Link>}
+        eyebrow={
+          <Link to={`/orgs/${organizationId}/noise-logs`} className="hover:underline">
+            Noise logs
+          </Link>
+        }
         title={`${log.workerCode} · ${log.shiftDate}`}
         description={
           <>
-            {log.exposureGroupName} · {log.fileName} · {log.instrument || 'instrument not given'} · {log.intervalCount.toLocaleString('en')} intervals of {log.intervalSeconds} s ({duration(log.figures.runSeconds)} measured)
+            {log.exposureGroupName} · {log.fileName} · {log.instrument || 'instrument not given'} · {log.intervalCount.toLocaleString('en')} intervals of{' '}
+            {log.intervalSeconds} s ({duration(log.figures.runSeconds)} measured)
           </>
         }
         actions={
@@ -70,8 +75,8 @@ function Review({ log, organizationId, organizationName }: { log: NoiseLogDetail
             The wear check found {log.stillStretches?.length === 1 ? 'a still stretch' : `${log.stillStretches?.length} still stretches`} of at least{' '}
             {log.settings.stillMinutes} minutes
             {longest !== null && <> (longest {duration(longest)})</>}:{' '}
-            {(log.stillStretches ?? []).map((stretch) => `${clockTime(stretch.startS)}–${clockTime(stretch.endS)}`).join(', ')}. The meter may have been put down
-            rather than worn. If so, mask the span with a reason before accepting the log.
+            {(log.stillStretches ?? []).map((stretch) => `${clockTime(stretch.startS)}–${clockTime(stretch.endS)}`).join(', ')}. The meter may have been put
+            down rather than worn. If so, mask the span with a reason before accepting the log.
           </Notice>
         )}
         {!log.wearCheckAvailable && (
@@ -81,14 +86,16 @@ function Review({ log, organizationId, organizationName }: { log: NoiseLogDetail
         )}
         {log.calibration.exceedsLimit && (
           <Notice tone="warning" title="Calibration drift over the limit">
-            The field calibration check drifted by {decibels(log.calibration.driftDb)} (before {decibels(log.calibration.beforeDb)}, after {decibels(log.calibration.afterDb)}),
-            more than the {log.calibration.limitDb} dB limit set for the organization.
+            The field calibration check drifted by {decibels(log.calibration.driftDb)} (before {decibels(log.calibration.beforeDb)}, after{' '}
+            {decibels(log.calibration.afterDb)}), more than the {log.calibration.limitDb} dB limit set for the organization.
           </Notice>
         )}
 
         <section aria-labelledby="chart-title" className="rounded-md border border-slate-200 bg-white p-3">
           <div className="flex flex-wrap items-center justify-between gap-2">
-            <h2 id="chart-title" className="text-base font-semibold">Time history</h2>
+            <h2 id="chart-title" className="text-base font-semibold">
+              Time history
+            </h2>
             <div className="flex items-center gap-2" role="group" aria-label="Chart mode">
               <Button size="sm" variant={mode === 'zoom' ? 'primary' : 'secondary'} aria-pressed={mode === 'zoom'} onClick={() => setMode('zoom')}>
                 Zoom and pan
@@ -99,54 +106,79 @@ function Review({ log, organizationId, organizationName }: { log: NoiseLogDetail
                 </Button>
               )}
               {canEdit && (
-                <Button size="sm" onClick={() => setDialog({ kind: 'add', startS: chartWindow.fromS ?? log.startS, endS: Math.min(chartWindow.toS ?? log.startS + 60, log.endS) })}>
+                <Button
+                  size="sm"
+                  onClick={() =>
+                    setDialog({ kind: 'add', startS: chartWindow.fromS ?? log.startS, endS: Math.min(chartWindow.toS ?? log.startS + 60, log.endS) })
+                  }
+                >
                   Mask by times…
                 </Button>
               )}
             </div>
           </div>
           <figure className="mt-1" aria-labelledby="chart-caption">
-          <figcaption id="chart-caption" className="text-xs text-slate-600">
-            Level line: LAeq per interval{channels.data?.downsampled ? ' (lowest and highest per bucket while zoomed out; zoom in for every interval)' : ''}. Points: LCpeak. Hatched bands: masked spans.
-            Lower lane: still stretches (bars) and knocks (×). Dashed line: 85 dBA. The knocks, still stretches and masks are also listed below the chart.
-          </figcaption>
-          <div className="mt-2 min-h-[420px]">
-            {channels.data ? (
-              <Suspense fallback={<LoadingState label="Loading the chart…" />}>
-                <NoiseChart
-                  log={log}
-                  channels={channels.data}
-                  mode={mode}
-                  onSelectSpan={(span) => setDialog({ kind: 'add', ...span })}
-                  onWindowChange={setChartWindow}
-                />
-              </Suspense>
-            ) : (
-              <LoadingState label="Loading the levels…" />
-            )}
-          </div>
+            <figcaption id="chart-caption" className="text-xs text-slate-600">
+              Level line: LAeq per interval{channels.data?.downsampled ? ' (lowest and highest per bucket while zoomed out; zoom in for every interval)' : ''}.
+              Points: LCpeak. Hatched bands: masked spans. Lower lane: still stretches (bars) and knocks (×). Dashed line: 85 dBA. The knocks, still stretches
+              and masks are also listed below the chart.
+            </figcaption>
+            <div className="mt-2 min-h-[420px]">
+              {channels.data ? (
+                <Suspense fallback={<LoadingState label="Loading the chart…" />}>
+                  <NoiseChart
+                    log={log}
+                    channels={channels.data}
+                    mode={mode}
+                    onSelectSpan={(span) => setDialog({ kind: 'add', ...span })}
+                    onWindowChange={setChartWindow}
+                  />
+                </Suspense>
+              ) : (
+                <LoadingState label="Loading the levels…" />
+              )}
+            </div>
           </figure>
           <div className="mt-2 grid gap-1 text-sm sm:grid-cols-2">
             <p>
-              Knocks: {log.knocks === null ? 'not looked for (no peak acceleration column)' : log.knocks.length === 0 ? 'none' : log.knocks.map((knock) => `${clockTime(knock.tS)} (${Math.round(knock.peakMg)} mg)`).join(', ')}
+              Knocks:{' '}
+              {log.knocks === null
+                ? 'not looked for (no peak acceleration column)'
+                : log.knocks.length === 0
+                  ? 'none'
+                  : log.knocks.map((knock) => `${clockTime(knock.tS)} (${Math.round(knock.peakMg)} mg)`).join(', ')}
             </p>
             <p>
-              Still stretches: {log.stillStretches === null ? 'not checked' : log.stillStretches.length === 0 ? 'none' : log.stillStretches.map((s) => `${clockTime(s.startS)}–${clockTime(s.endS)}`).join(', ')}
+              Still stretches:{' '}
+              {log.stillStretches === null
+                ? 'not checked'
+                : log.stillStretches.length === 0
+                  ? 'none'
+                  : log.stillStretches.map((s) => `${clockTime(s.startS)}–${clockTime(s.endS)}`).join(', ')}
             </p>
           </div>
         </section>
 
         <section aria-labelledby="figures-title" className="space-y-2">
-          <h2 id="figures-title" className="text-base font-semibold">As-logged and reviewed figures</h2>
+          <h2 id="figures-title" className="text-base font-semibold">
+            As-logged and reviewed figures
+          </h2>
           <p className="text-sm text-slate-700">
-            Masked: {duration(log.figures.maskedSeconds)} of {duration(log.figures.runSeconds)}. Highest C-weighted peak: {decibels(log.figures.maxLcPeakDb, 'dBC')}
-            {log.peakOver140Db ? ' — over 140 dB peak' : ''}. Calibration drift: {log.calibration.driftDb === null ? 'not recorded' : `${decibels(log.calibration.driftDb)} (limit ${log.calibration.limitDb} dB, ${log.calibration.exceedsLimit ? 'over the limit' : 'within'})`}.
+            Masked: {duration(log.figures.maskedSeconds)} of {duration(log.figures.runSeconds)}. Highest C-weighted peak:{' '}
+            {decibels(log.figures.maxLcPeakDb, 'dBC')}
+            {log.peakOver140Db ? ' — over 140 dB peak' : ''}. Calibration drift:{' '}
+            {log.calibration.driftDb === null
+              ? 'not recorded'
+              : `${decibels(log.calibration.driftDb)} (limit ${log.calibration.limitDb} dB, ${log.calibration.exceedsLimit ? 'over the limit' : 'within'})`}
+            .
           </p>
           <NoiseFiguresTable log={log} />
         </section>
 
         <section aria-labelledby="masks-title" className="space-y-2">
-          <h2 id="masks-title" className="text-base font-semibold">Masked spans</h2>
+          <h2 id="masks-title" className="text-base font-semibold">
+            Masked spans
+          </h2>
           {changeMask.error && <Notice tone="error">{isApiError(changeMask.error) ? changeMask.error.message : 'The mask could not be changed.'}</Notice>}
           <NoiseMasksTable
             masks={log.masks}
@@ -158,15 +190,19 @@ function Review({ log, organizationId, organizationName }: { log: NoiseLogDetail
         </section>
 
         <section aria-labelledby="group-title" className="space-y-2 rounded-md border border-slate-200 bg-white p-3">
-          <h2 id="group-title" className="text-base font-semibold">Into the group</h2>
+          <h2 id="group-title" className="text-base font-semibold">
+            Into the group
+          </h2>
           {log.status === 'accepted' ? (
             <p className="text-sm" data-testid="accepted-note">
-              In “{log.group.name}” as shift result {log.shiftResultId}. A mask changed now updates that result and marks decision drafts of the group out of date.
+              In “{log.group.name}” as shift result {log.shiftResultId}. A mask changed now updates that result and marks decision drafts of the group out of
+              date.
             </p>
           ) : (
             <>
               <p className="text-sm">
-                Accepting stores the reviewed {log.group.oelUnit === 'dose-percent' ? `dose (${criteriaSet})` : 'level'} as {log.workerCode}'s shift result of {log.shiftDate} in “{log.group.name}”, with the TWA and LEX,8h in its details.
+                Accepting stores the reviewed {log.group.oelUnit === 'dose-percent' ? `dose (${criteriaSet})` : 'level'} as {log.workerCode}'s shift result of{' '}
+                {log.shiftDate} in “{log.group.name}”, with the TWA and LEX,8h in its details.
               </p>
               {accept.error && <Notice tone="error">{isApiError(accept.error) ? accept.error.message : 'The log could not be accepted.'}</Notice>}
               {canEdit && (

@@ -31,8 +31,13 @@ export function Component() {
   const groups = useExposureGroupChoices(organizationId);
   const workers = useWorkerChoices(organizationId);
   const [uploading, setUploading] = useState(false);
-  const noiseGroups = (groups.data?.items ?? []).filter((group) => group.agentKind === 'noise').map((group) => ({ value: String(group.id), label: group.name }));
-  const workerChoices = (workers.data?.items ?? []).map((worker) => ({ value: String(worker.id), label: worker.name ? `${worker.code} · ${worker.name}` : worker.code }));
+  const noiseGroups = (groups.data?.items ?? [])
+    .filter((group) => group.agentKind === 'noise')
+    .map((group) => ({ value: String(group.id), label: group.name }));
+  const workerChoices = (workers.data?.items ?? []).map((worker) => ({
+    value: String(worker.id),
+    label: worker.name ? `${worker.code} · ${worker.name}` : worker.code,
+  }));
   const setFilter = (key: string, value: string) => {
     const next = new URLSearchParams(search);
     if (value) next.set(key, value);
@@ -56,25 +61,51 @@ export function Component() {
         }
       />
       <div className="mb-3 grid max-w-2xl gap-3 sm:grid-cols-2">
-        <SelectField label="Exposure group" value={groupId} onChange={(event) => setFilter('groupId', event.target.value)} options={[{ value: '', label: 'All noise groups' }, ...noiseGroups]} />
-        <SelectField label="Worker" value={workerId} onChange={(event) => setFilter('workerId', event.target.value)} options={[{ value: '', label: 'All workers' }, ...workerChoices]} />
+        <SelectField
+          label="Exposure group"
+          value={groupId}
+          onChange={(event) => setFilter('groupId', event.target.value)}
+          options={[{ value: '', label: 'All noise groups' }, ...noiseGroups]}
+        />
+        <SelectField
+          label="Worker"
+          value={workerId}
+          onChange={(event) => setFilter('workerId', event.target.value)}
+          options={[{ value: '', label: 'All workers' }, ...workerChoices]}
+        />
       </div>
       <QueryState query={logs} loading="Loading noise logs…" errorTitle="The noise logs could not be loaded">
         {(data) =>
           data.items.length === 0 ? (
-            <EmptyState title="No noise logs here yet">{canEdit ? 'Upload a dosimeter log to review it.' : 'A hygienist uploads dosimeter logs here.'}</EmptyState>
+            <EmptyState title="No noise logs here yet">
+              {canEdit ? 'Upload a dosimeter log to review it.' : 'A hygienist uploads dosimeter logs here.'}
+            </EmptyState>
           ) : (
             <div className="overflow-x-auto rounded-md border border-slate-200 bg-white">
               <table className="min-w-full text-sm" aria-label="Noise logs">
                 <thead>
                   <tr className="border-b border-slate-300 text-left text-slate-600">
-                    <th scope="col" className="px-3 py-2 font-medium">Shift</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Worker</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Group</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Measured</th>
-                    <th scope="col" className="px-3 py-2 text-right font-medium">Dose as logged (NIOSH REL)</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Wear check</th>
-                    <th scope="col" className="px-3 py-2 font-medium">Status</th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Shift
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Worker
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Group
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Measured
+                    </th>
+                    <th scope="col" className="px-3 py-2 text-right font-medium">
+                      Dose as logged (NIOSH REL)
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Wear check
+                    </th>
+                    <th scope="col" className="px-3 py-2 font-medium">
+                      Status
+                    </th>
                   </tr>
                 </thead>
                 <tbody>
@@ -88,7 +119,9 @@ export function Component() {
                       </td>
                       <td className="px-3 py-1.5">{log.workerCode}</td>
                       <td className="px-3 py-1.5">{log.exposureGroupName}</td>
-                      <td className="px-3 py-1.5">{duration(log.runSeconds)} at {log.intervalSeconds} s</td>
+                      <td className="px-3 py-1.5">
+                        {duration(log.runSeconds)} at {log.intervalSeconds} s
+                      </td>
                       <td className="px-3 py-1.5 text-right tabular-nums">{dose(log.summary.asLogged.nioshRel.dose)}</td>
                       <td className="px-3 py-1.5">
                         {log.summary.stillStretchCount === null
@@ -109,7 +142,8 @@ export function Component() {
         }
       </QueryState>
       <p className="mt-3 text-sm text-slate-700">
-        Action level (hearing conservation trigger): 85 dBA TWA = 50 % dose on the OSHA hearing-conservation set. Each log's page shows it for the reviewed figures.
+        Action level (hearing conservation trigger): 85 dBA TWA = 50 % dose on the OSHA hearing-conservation set. Each log's page shows it for the reviewed
+        figures.
       </p>
       <div className="mt-4">
         <CautionNote />

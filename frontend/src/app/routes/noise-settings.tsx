@@ -13,11 +13,19 @@ import { useMembership } from '../use-membership';
 
 const fields: Array<{ key: keyof NoiseSettingsValues; label: string; hint: string }> = [
   { key: 'stillMinutes', label: 'Still stretch, minutes', hint: 'A run of intervals without motion at least this long is a still stretch (default 15).' },
-  { key: 'motionChangeMg', label: 'Motion threshold, mg', hint: 'Without a motion column, a change of the mean acceleration of at least this counts as motion (default 30).' },
+  {
+    key: 'motionChangeMg',
+    label: 'Motion threshold, mg',
+    hint: 'Without a motion column, a change of the mean acceleration of at least this counts as motion (default 30).',
+  },
   { key: 'knockMg', label: 'Knock threshold, mg', hint: 'An interval whose peak acceleration reaches this is a knock (default 3000).' },
   { key: 'maskBeforeS', label: 'Knock mask before, s', hint: 'A knock’s proposed mask starts this long before the knock interval (default 2).' },
   { key: 'maskAfterS', label: 'Knock mask after, s', hint: 'A knock’s proposed mask ends this long after the knock interval (default 3).' },
-  { key: 'driftLimitDb', label: 'Calibration drift limit, dB', hint: 'Flag a log whose calibration check drifts by more than this (default 0.5, common practice).' },
+  {
+    key: 'driftLimitDb',
+    label: 'Calibration drift limit, dB',
+    hint: 'Flag a log whose calibration check drifts by more than this (default 0.5, common practice).',
+  },
 ];
 
 /** /orgs/:orgId/noise-settings — wear-check, mask and calibration settings; admins change them. */
@@ -27,9 +35,20 @@ export function Component() {
   return (
     <>
       <DocumentTitle title={`Noise settings · ${membership.organizationName}`} />
-      <PageHeader eyebrow={membership.organizationName} title="Noise log settings" description="Used for logs uploaded from now on; each log keeps the settings it was checked with." />
+      <PageHeader
+        eyebrow={membership.organizationName}
+        title="Noise log settings"
+        description="Used for logs uploaded from now on; each log keeps the settings it was checked with."
+      />
       <QueryState query={settings} loading="Loading the settings…" errorTitle="The settings could not be loaded">
-        {(values) => <SettingsForm key={membership.organizationKey} values={values} organizationId={membership.organizationKey} canManage={can(membership.role, 'settings:manage')} />}
+        {(values) => (
+          <SettingsForm
+            key={membership.organizationKey}
+            values={values}
+            organizationId={membership.organizationKey}
+            canManage={can(membership.role, 'settings:manage')}
+          />
+        )}
       </QueryState>
     </>
   );
@@ -44,7 +63,9 @@ function SettingsForm({ values, organizationId, canManage }: { values: NoiseSett
   async function submit(event: FormEvent) {
     event.preventDefault();
     setSaved(false);
-    const parsed = noiseSettingsUpdate.safeParse(Object.fromEntries(Object.entries(draft).map(([key, value]) => [key, value.trim() === '' ? undefined : Number(value)])));
+    const parsed = noiseSettingsUpdate.safeParse(
+      Object.fromEntries(Object.entries(draft).map(([key, value]) => [key, value.trim() === '' ? undefined : Number(value)])),
+    );
     if (!parsed.success) {
       setProblems(Object.fromEntries(parsed.error.issues.map((issue) => [String(issue.path[0]), issue.message])));
       return;

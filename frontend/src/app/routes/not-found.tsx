@@ -12,8 +12,8 @@ export function Component() {
         <p className="text-sm font-semibold text-slate-500">404</p>
         <h1 className="text-lg">Page not found</h1>
         <p className="mt-2 text-sm text-slate-600">
-          Nothing lives at <code className="rounded bg-slate-100 px-1 py-0.5 text-slate-800">{location.pathname}</code>. The link may be
-          mistyped or out of date.
+          Nothing lives at <code className="rounded bg-slate-100 px-1 py-0.5 text-slate-800">{location.pathname}</code>. The link may be mistyped or out of
+          date.
         </p>
         <p className="mt-4 text-sm">
           <Link to="/">Go to the start page</Link>

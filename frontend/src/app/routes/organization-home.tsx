@@ -98,7 +98,8 @@ export function Component() {
 
 function DashboardSections({ organizationId, dashboard }: { organizationId: string; dashboard: ReturnType<typeof useDashboard> }) {
   if (dashboard.isPending) return <LoadingState label="Loading the dashboard…" className="mb-6" />;
-  if (dashboard.isError) return <ErrorState title="Could not load the dashboard" error={dashboard.error} onRetry={() => dashboard.refetch()} className="mb-6" />;
+  if (dashboard.isError)
+    return <ErrorState title="Could not load the dashboard" error={dashboard.error} onRetry={() => dashboard.refetch()} className="mb-6" />;
   const data = dashboard.data;
   return (
     <div className="mb-6 space-y-6">

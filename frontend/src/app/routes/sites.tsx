@@ -43,7 +43,15 @@ export function Component() {
         {saved && <Notice tone="success">{saved}</Notice>}
         <QueryState query={sites} loading="Loading sites…" errorTitle="Could not load the sites">
           {(page) => (
-            <SitesTable organizationId={organizationId} page={page} params={params} busy={sites.isPlaceholderData} canEdit={canEdit} onEdit={setEditing} onOutcome={setSaved} />
+            <SitesTable
+              organizationId={organizationId}
+              page={page}
+              params={params}
+              busy={sites.isPlaceholderData}
+              canEdit={canEdit}
+              onEdit={setEditing}
+              onOutcome={setSaved}
+            />
           )}
         </QueryState>
       </div>

@@ -69,6 +69,12 @@ export function Component() {
                 <dt className="text-xs font-medium text-slate-500 uppercase">Name</dt>
                 <dd>{canSeeNames ? <WorkerName worker={data} /> : <span className="text-slate-500">Not shared with your role</span>}</dd>
               </div>
+              {canSeeNames && (
+                <div>
+                  <dt className="text-xs font-medium text-slate-500 uppercase">E-mail (for letters)</dt>
+                  <dd className="break-all">{data.email ? data.email : <span className="text-slate-500">None recorded</span>}</dd>
+                </div>
+              )}
               <div>
                 <dt className="text-xs font-medium text-slate-500 uppercase">Status</dt>
                 <dd>
@@ -87,7 +93,13 @@ export function Component() {
               groupChoices={groups.data?.items.map((group) => ({ id: group.id, label: `${group.name} (${group.siteName})` }))}
             />
             <Dialog open={editing} onClose={() => setEditing(false)} title="Edit worker">
-              <WorkerForm organizationId={organizationId} canSeeNames={canSeeNames} worker={data} onCancel={() => setEditing(false)} onSaved={() => setEditing(false)} />
+              <WorkerForm
+                organizationId={organizationId}
+                canSeeNames={canSeeNames}
+                worker={data}
+                onCancel={() => setEditing(false)}
+                onSaved={() => setEditing(false)}
+              />
             </Dialog>
           </>
         )}

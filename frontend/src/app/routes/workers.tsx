@@ -21,7 +21,10 @@ export function Component() {
   const organizationId = membership.organizationKey;
   const canEdit = useCanEdit();
   const canSeeNames = can(membership.role, 'workerNames:read');
-  const params = useListParams({ defaultSort: 'code', sortFields: canSeeNames ? ['code', 'name', 'jobTitle', 'createdAt', 'updatedAt'] : ['code', 'jobTitle', 'createdAt', 'updatedAt'] });
+  const params = useListParams({
+    defaultSort: 'code',
+    sortFields: canSeeNames ? ['code', 'name', 'jobTitle', 'createdAt', 'updatedAt'] : ['code', 'jobTitle', 'createdAt', 'updatedAt'],
+  });
   const workers = useWorkers(organizationId, listQueryString(params, ['archived', 'groupId']));
   const groups = useExposureGroupChoices(organizationId);
   const [editing, setEditing] = useState<WorkerListItem | 'new' | null>(null);
@@ -53,7 +56,10 @@ export function Component() {
             name="groupId"
             label="Member of (today)"
             className="w-64"
-            options={[{ value: '', label: 'Any group or none' }, ...(groups.data?.items ?? []).map((group) => ({ value: String(group.id), label: group.name }))]}
+            options={[
+              { value: '', label: 'Any group or none' },
+              ...(groups.data?.items ?? []).map((group) => ({ value: String(group.id), label: group.name })),
+            ]}
           />
         </ListToolbar>
         {saved && <Notice tone="success">{saved}</Notice>}

@@ -22,7 +22,17 @@ const numberOrNull = (value: unknown) => (value === '' || value === null || valu
  * Add or edit an agent. A chemical may carry its CAS number (check digit verified) and molecular
  * weight, which converts ppm ↔ mg/m³; noise carries neither, so those fields hide for noise.
  */
-export function AgentForm({ organizationId, agent, onSaved, onCancel }: { organizationId: string; agent?: AgentView; onSaved: (agent: AgentView) => void; onCancel: () => void }) {
+export function AgentForm({
+  organizationId,
+  agent,
+  onSaved,
+  onCancel,
+}: {
+  organizationId: string;
+  agent?: AgentView;
+  onSaved: (agent: AgentView) => void;
+  onCancel: () => void;
+}) {
   const create = useCreateAgent(organizationId);
   const update = useUpdateAgent(organizationId);
   const form = useForm({

@@ -295,10 +295,34 @@ function histogramFigure(assessment: Assessment): { data: Data[]; layout: Partia
     data,
     layout: baseLayout({
       bargap: 0,
-      xaxis: { title: { text: `Value (${unit}, logarithmic scale)`, font: { size: 12, color: muted } }, ...logTicks(from, to), range: [from, to], gridcolor: grid, zeroline: false },
-      yaxis: { title: { text: 'Results', font: { size: 12, color: muted } }, gridcolor: grid, range: [0, top * 1.15], dtick: top > 10 ? undefined : 1, zeroline: false },
+      xaxis: {
+        title: { text: `Value (${unit}, logarithmic scale)`, font: { size: 12, color: muted } },
+        ...logTicks(from, to),
+        range: [from, to],
+        gridcolor: grid,
+        zeroline: false,
+      },
+      yaxis: {
+        title: { text: 'Results', font: { size: 12, color: muted } },
+        gridcolor: grid,
+        range: [0, top * 1.15],
+        dtick: top > 10 ? undefined : 1,
+        zeroline: false,
+      },
       shapes: [{ type: 'line', xref: 'x', x0: oelLog, x1: oelLog, yref: 'paper', y0: 0, y1: 1, line: { color: oelColour, width: 1.5 } }],
-      annotations: [{ xref: 'x', x: oelLog, xanchor: 'right', yref: 'paper', y: 1, yanchor: 'top', text: `OEL ${formatFigure(group.oel)} ${unit} `, showarrow: false, font: { size: 11, color: oelColour } }],
+      annotations: [
+        {
+          xref: 'x',
+          x: oelLog,
+          xanchor: 'right',
+          yref: 'paper',
+          y: 1,
+          yanchor: 'top',
+          text: `OEL ${formatFigure(group.oel)} ${unit} `,
+          showarrow: false,
+          font: { size: 11, color: oelColour },
+        },
+      ],
     }),
   };
 }
@@ -348,7 +372,13 @@ function timeFigure(assessment: Assessment): { data: Data[]; layout: Partial<Lay
     marker,
     hovertemplate: `%{x|%d %b %Y} · %{text}<br>${prefix}%{y:.4g} ${unit}<extra></extra>`,
   });
-  const data: Data[] = [trace('Result', used.results.filter((result) => !result.nonDetect), detectedMarker())];
+  const data: Data[] = [
+    trace(
+      'Result',
+      used.results.filter((result) => !result.nonDetect),
+      detectedMarker(),
+    ),
+  ];
   const censored = used.results.filter((result) => result.nonDetect);
   if (censored.length > 0) data.push(trace('Non-detect (at its detection limit)', censored, nonDetectMarker(), 'below '));
   if (used.excluded.length > 0) data.push(trace('Left out (what-if)', used.excluded, leftOutMarker));
@@ -395,7 +425,13 @@ function workersFigure(assessment: Assessment): { data: Data[]; layout: Partial<
     marker,
     hovertemplate: `%{text}<br>${prefix}%{y:.4g} ${unit}<extra></extra>`,
   });
-  data.push(points('Result', used.results.filter((result) => !result.nonDetect), detectedMarker()));
+  data.push(
+    points(
+      'Result',
+      used.results.filter((result) => !result.nonDetect),
+      detectedMarker(),
+    ),
+  );
   const censored = used.results.filter((result) => result.nonDetect);
   if (censored.length > 0) data.push(points('Non-detect (at its detection limit)', censored, nonDetectMarker(), 'below '));
   if (used.excluded.length > 0) data.push(points('Left out (what-if)', used.excluded, leftOutMarker));

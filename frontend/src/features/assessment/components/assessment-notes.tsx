@@ -50,7 +50,8 @@ export function MethodsAndSettings({ assessment }: { assessment: GroupAssessment
         <dd>{settings.seed}</dd>
         <dt>Bayesian threshold</dt>
         <dd>
-          unacceptable when P(P95 &gt; OEL) ≥ {settings.unacceptableThreshold} ({settings.unacceptableThresholdSource === 'organization' ? "the organization's setting" : 'the default'})
+          unacceptable when P(P95 &gt; OEL) ≥ {settings.unacceptableThreshold} (
+          {settings.unacceptableThresholdSource === 'organization' ? "the organization's setting" : 'the default'})
         </dd>
         <dt>Markov chains</dt>
         <dd>

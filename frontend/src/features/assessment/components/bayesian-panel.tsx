@@ -56,7 +56,8 @@ export function BayesianPanel({ assessment }: { assessment: GroupAssessmentRespo
       title="Bayesian view"
       subtitle={
         <>
-          Posterior medians with 95 % credible limits. Prior: <strong className="font-medium">{priorNames[bayes.prior.name]}</strong> — {bayes.prior.description}.
+          Posterior medians with 95 % credible limits. Prior: <strong className="font-medium">{priorNames[bayes.prior.name]}</strong> —{' '}
+          {bayes.prior.description}.
         </>
       }
     >

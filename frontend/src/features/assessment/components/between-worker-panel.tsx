@@ -22,7 +22,11 @@ export function BetweenWorkerPanel({ assessment }: { assessment: GroupAssessment
     >
       <FigureTable label="Between-worker figures">
         <FigureRow label="GSD within workers" value={<Figure value={w.withinGsd} />} note="Day-to-day variation of one worker" />
-        <FigureRow label="GSD between workers" value={<Figure value={w.betweenGsd} />} note={<>Spread of workers’ long-term means; R0.95 = {formatFigure(w.ratio95)}</>} />
+        <FigureRow
+          label="GSD between workers"
+          value={<Figure value={w.betweenGsd} />}
+          note={<>Spread of workers’ long-term means; R0.95 = {formatFigure(w.ratio95)}</>}
+        />
         <FigureRow label="Intraclass correlation" value={<Figure value={w.intraclassCorrelation} />} note="Share of the variance that lies between workers" />
         <FigureRow
           label="Differences between workers"

@@ -71,7 +71,8 @@ export function ClassicalPanel({ assessment }: { assessment: GroupAssessmentResp
           value={<Figure value={c.amMvue} unit={unit} />}
           note={
             <>
-              {complete ? "Land's exact" : 'Bootstrap'} one-sided 95 % limits: <Figure value={c.amLcl95} unit={unit} /> (lower), <Figure value={c.amUcl95} unit={unit} /> (upper)
+              {complete ? "Land's exact" : 'Bootstrap'} one-sided 95 % limits: <Figure value={c.amLcl95} unit={unit} /> (lower),{' '}
+              <Figure value={c.amUcl95} unit={unit} /> (upper)
             </>
           }
         />
@@ -97,7 +98,15 @@ export function ClassicalPanel({ assessment }: { assessment: GroupAssessmentResp
         />
         <FigureRow
           label="Lognormal fit check"
-          value={swLog ? <>Shapiro–Wilk on logs: W {formatFigure(swLog.w)}, p {formatFigure(swLog.p)}</> : 'Not tested'}
+          value={
+            swLog ? (
+              <>
+                Shapiro–Wilk on logs: W {formatFigure(swLog.w)}, p {formatFigure(swLog.p)}
+              </>
+            ) : (
+              'Not tested'
+            )
+          }
           note={
             <>
               {c.fitCheck.shapiroWilkRaw && (

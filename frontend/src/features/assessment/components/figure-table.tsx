@@ -24,7 +24,19 @@ export function FigureRow({ label, value, note, testId }: { label: ReactNode; va
 }
 
 /** A bordered panel with a heading (h2) and optional subtitle. */
-export function Panel({ id, title, subtitle, children, className = '' }: { id: string; title: string; subtitle?: ReactNode; children: ReactNode; className?: string }) {
+export function Panel({
+  id,
+  title,
+  subtitle,
+  children,
+  className = '',
+}: {
+  id: string;
+  title: string;
+  subtitle?: ReactNode;
+  children: ReactNode;
+  className?: string;
+}) {
   return (
     <section aria-labelledby={id} className={`card p-4 ${className}`}>
       <h2 id={id} className="text-base">

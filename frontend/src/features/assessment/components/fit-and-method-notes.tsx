@@ -45,8 +45,8 @@ export function FitAndMethodNotes({ assessment }: { assessment: GroupAssessmentR
       )}
       {!c.fitCheck.doubtful && c.fitCheck.shapiroWilkLog && (
         <p className="text-xs text-slate-600">
-          The lognormal model fits the {c.nonDetects > 0 ? 'detected values' : 'results'}: Shapiro–Wilk on the logs p = {formatFigure(c.fitCheck.shapiroWilkLog.p)} (a
-          warning shows below 0.05).
+          The lognormal model fits the {c.nonDetects > 0 ? 'detected values' : 'results'}: Shapiro–Wilk on the logs p ={' '}
+          {formatFigure(c.fitCheck.shapiroWilkLog.p)} (a warning shows below 0.05).
         </p>
       )}
     </div>

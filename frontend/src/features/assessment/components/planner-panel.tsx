@@ -13,7 +13,11 @@ export function PlannerPanel({ assessment }: { assessment: GroupAssessmentRespon
     );
   }
   return (
-    <Panel id="planner-title" title="Sample planner" subtitle="How likely more shift results are to settle the judgement. A forecast from the current data, not a promise.">
+    <Panel
+      id="planner-title"
+      title="Sample planner"
+      subtitle="How likely more shift results are to settle the judgement. A forecast from the current data, not a promise."
+    >
       <p className="text-sm font-medium text-slate-900" data-testid="planner-statement">
         {plan.statement}
       </p>

@@ -22,7 +22,15 @@ export function RefusalPanel({ refusal }: { refusal: AssessmentRefusalDetails & 
       {d && (
         <div className="mt-3 rounded border border-amber-200 bg-white p-3 text-slate-900">
           <FigureTable label="What the results show so far">
-            <FigureRow label="Results" value={<>{d.n}{d.nonDetects > 0 && ` (${d.nonDetects} non-detects)`}</>} />
+            <FigureRow
+              label="Results"
+              value={
+                <>
+                  {d.n}
+                  {d.nonDetects > 0 && ` (${d.nonDetects} non-detects)`}
+                </>
+              }
+            />
             <FigureRow
               label="Lowest · highest detected"
               value={
@@ -31,8 +39,29 @@ export function RefusalPanel({ refusal }: { refusal: AssessmentRefusalDetails & 
                 </>
               }
             />
-            <FigureRow label="Above the OEL" value={<>{d.countAboveOel} of {d.n}</>} note={<>OEL <Figure value={refusal.group.oel} unit={unit} /></>} />
-            {d.countAboveActionLevel !== null && <FigureRow label="Above the action level" value={<>{d.countAboveActionLevel} of {d.n}</>} />}
+            <FigureRow
+              label="Above the OEL"
+              value={
+                <>
+                  {d.countAboveOel} of {d.n}
+                </>
+              }
+              note={
+                <>
+                  OEL <Figure value={refusal.group.oel} unit={unit} />
+                </>
+              }
+            />
+            {d.countAboveActionLevel !== null && (
+              <FigureRow
+                label="Above the action level"
+                value={
+                  <>
+                    {d.countAboveActionLevel} of {d.n}
+                  </>
+                }
+              />
+            )}
           </FigureTable>
         </div>
       )}

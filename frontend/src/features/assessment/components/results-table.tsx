@@ -13,7 +13,9 @@ const sourceWords: Record<ResultSource, string> = {
 
 /** Every valid result, in the order the engine receives them (date, worker). */
 export function allResults(used: readonly AssessmentResult[], excluded: readonly AssessmentResult[]): AssessmentResult[] {
-  return [...used, ...excluded].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : a.workerCode < b.workerCode ? -1 : a.workerCode > b.workerCode ? 1 : a.id - b.id));
+  return [...used, ...excluded].sort((a, b) =>
+    a.date < b.date ? -1 : a.date > b.date ? 1 : a.workerCode < b.workerCode ? -1 : a.workerCode > b.workerCode ? 1 : a.id - b.id,
+  );
 }
 
 /**

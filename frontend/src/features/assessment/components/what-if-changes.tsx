@@ -84,8 +84,8 @@ export function WhatIfChanges({
             What-if: {leftOut} {leftOut === 1 ? 'result' : 'results'} left out
           </h2>
           <p className="mt-0.5 text-slate-700">
-            The figures on this page leave {leftOut === 1 ? 'it' : 'them'} out. The stored results are not changed. When a decision is drafted from
-            this page, the results left out are saved with the draft.
+            The figures on this page leave {leftOut === 1 ? 'it' : 'them'} out. The stored results are not changed. When a decision is drafted from this page,
+            the results left out are saved with the draft.
           </p>
         </div>
         <Button size="sm" onClick={onClear}>

@@ -64,7 +64,9 @@ export function chartDescriptions(assessment: GroupAssessmentResponse): ChartDes
     kind: 'time',
     title: 'Results over time',
     caption:
-      (dates.length > 0 ? `The ${data.results.length} results from ${formatDate(`${dates[0]}T12:00:00Z`)} to ${formatDate(`${dates[dates.length - 1]}T12:00:00Z`)}` : 'No results') +
+      (dates.length > 0
+        ? `The ${data.results.length} results from ${formatDate(`${dates[0]}T12:00:00Z`)} to ${formatDate(`${dates[dates.length - 1]}T12:00:00Z`)}`
+        : 'No results') +
       `${nonDetectPart(c.nonDetects)}, on a logarithmic scale, with the OEL` +
       (group.actionLevel !== null ? ` and the action level (${formatFigure(group.actionLevel)} ${unit})` : '') +
       '.' +

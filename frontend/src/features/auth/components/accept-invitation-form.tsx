@@ -40,7 +40,13 @@ export function AcceptInvitationForm({ token, email, onAccepted }: { token: stri
         error={errors.password?.message}
         {...form.register('password')}
       />
-      <TextField label="Password, again" type="password" autoComplete="new-password" error={errors.confirmPassword?.message} {...form.register('confirmPassword')} />
+      <TextField
+        label="Password, again"
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirmPassword?.message}
+        {...form.register('confirmPassword')}
+      />
       {formError && <Notice tone="error">{formError}</Notice>}
       <Button type="submit" variant="primary" pending={mutation.isPending} className="w-full">
         Accept and sign in

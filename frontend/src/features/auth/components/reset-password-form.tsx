@@ -40,7 +40,13 @@ export function ResetPasswordForm({ token, onDone }: { token: string; onDone: ()
         error={errors.password?.message}
         {...form.register('password')}
       />
-      <TextField label="New password, again" type="password" autoComplete="new-password" error={errors.confirmPassword?.message} {...form.register('confirmPassword')} />
+      <TextField
+        label="New password, again"
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirmPassword?.message}
+        {...form.register('confirmPassword')}
+      />
       {formError && (
         <Notice tone="error">
           {formError} <Link to="/forgot-password">Ask for a new link</Link>.

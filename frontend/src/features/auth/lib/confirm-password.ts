@@ -11,10 +11,7 @@ export const newPasswordFields = {
 };
 
 /** Refinement for a schema built from `newPasswordFields`. */
-export const passwordsMatch: [
-  (values: { password: string; confirmPassword: string }) => boolean,
-  { path: string[]; message: string },
-] = [
+export const passwordsMatch: [(values: { password: string; confirmPassword: string }) => boolean, { path: string[]; message: string }] = [
   (values) => values.password === values.confirmPassword,
   { path: ['confirmPassword'], message: 'The two passwords are not the same' },
 ];

@@ -19,13 +19,17 @@ export function CategoryMatrix({ organizationId, matrix }: { organizationId: str
         <caption className="sr-only">Exposure groups by site and exposure category (current approved decision records)</caption>
         <thead className="bg-slate-50 text-left text-xs text-slate-600">
           <tr>
-            <th scope="col" className="px-3 py-2 font-medium">Site</th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Site
+            </th>
             {exposureCategories.map((entry) => (
               <th key={entry.category} scope="col" className="px-3 py-2 font-medium whitespace-nowrap">
                 <CategoryBadge category={entry.category} />
               </th>
             ))}
-            <th scope="col" className="px-3 py-2 font-medium">No approved record</th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              No approved record
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -40,7 +44,11 @@ export function CategoryMatrix({ organizationId, matrix }: { organizationId: str
                 </td>
               ))}
               <td className="px-3 py-2">
-                {row.undecided.length > 0 ? <ul className="space-y-1 text-slate-700">{row.undecided.map(groupLink)}</ul> : <span className="text-slate-400">–</span>}
+                {row.undecided.length > 0 ? (
+                  <ul className="space-y-1 text-slate-700">{row.undecided.map(groupLink)}</ul>
+                ) : (
+                  <span className="text-slate-400">–</span>
+                )}
               </td>
             </tr>
           ))}

@@ -15,7 +15,21 @@ function GroupLine({ organizationId, group, detail }: { organizationId: string; 
   );
 }
 
-function Panel({ id, title, empty, groups, organizationId, detail }: { id: string; title: string; empty: string; groups: DashboardGroup[]; organizationId: string; detail?: (group: DashboardGroup) => string }) {
+function Panel({
+  id,
+  title,
+  empty,
+  groups,
+  organizationId,
+  detail,
+}: {
+  id: string;
+  title: string;
+  empty: string;
+  groups: DashboardGroup[];
+  organizationId: string;
+  detail?: (group: DashboardGroup) => string;
+}) {
   return (
     <section aria-labelledby={id} className="rounded-md border border-slate-200 bg-white p-3">
       <h3 id={id} className="text-sm font-semibold">
@@ -38,7 +52,13 @@ function Panel({ id, title, empty, groups, organizationId, detail }: { id: strin
 export function AttentionLists({ organizationId, dashboard }: { organizationId: string; dashboard: OrganizationDashboard }) {
   return (
     <div className="grid gap-3 md:grid-cols-2">
-      <Panel id="unacceptable-title" title="Unacceptable groups" empty="No group is judged unacceptable." groups={dashboard.unacceptable} organizationId={organizationId} />
+      <Panel
+        id="unacceptable-title"
+        title="Unacceptable groups"
+        empty="No group is judged unacceptable."
+        groups={dashboard.unacceptable}
+        organizationId={organizationId}
+      />
       <Panel id="uncertain-title" title="Uncertain groups" empty="No group is judged uncertain." groups={dashboard.uncertain} organizationId={organizationId} />
     </div>
   );
@@ -50,8 +70,22 @@ export function ReviewLists({ organizationId, dashboard }: { organizationId: str
   return (
     <div className="grid gap-3 md:grid-cols-3">
       <Panel id="overdue-title" title="Reviews overdue" empty="None overdue." groups={dashboard.reviews.overdue} organizationId={organizationId} detail={due} />
-      <Panel id="due30-title" title="Due within 30 days" empty="None due in 30 days." groups={dashboard.reviews.within30} organizationId={organizationId} detail={due} />
-      <Panel id="due90-title" title="Due in 31–90 days" empty="None due in 31–90 days." groups={dashboard.reviews.within90} organizationId={organizationId} detail={due} />
+      <Panel
+        id="due30-title"
+        title="Due within 30 days"
+        empty="None due in 30 days."
+        groups={dashboard.reviews.within30}
+        organizationId={organizationId}
+        detail={due}
+      />
+      <Panel
+        id="due90-title"
+        title="Due in 31–90 days"
+        empty="None due in 31–90 days."
+        groups={dashboard.reviews.within90}
+        organizationId={organizationId}
+        detail={due}
+      />
     </div>
   );
 }
@@ -66,9 +100,15 @@ export function SamplingProgress({ dashboard }: { dashboard: OrganizationDashboa
         <caption className="sr-only">Sampling progress of each group's current plan</caption>
         <thead className="bg-slate-50 text-left text-xs text-slate-600">
           <tr>
-            <th scope="col" className="px-3 py-2 font-medium">Exposure group</th>
-            <th scope="col" className="px-3 py-2 font-medium">Measured / target</th>
-            <th scope="col" className="px-3 py-2 font-medium">Valid results</th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Exposure group
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Measured / target
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Valid results
+            </th>
           </tr>
         </thead>
         <tbody>

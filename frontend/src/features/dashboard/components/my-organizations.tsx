@@ -11,14 +11,20 @@ export function MyOrganizations({ organizations }: { organizations: OverviewOrga
         <caption className="sr-only">Your organizations</caption>
         <thead className="bg-slate-50 text-left text-xs text-slate-600">
           <tr>
-            <th scope="col" className="px-3 py-2 font-medium">Organization</th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Organization
+            </th>
             {exposureCategories.map((entry) => (
               <th key={entry.category} scope="col" className="px-3 py-2 font-medium whitespace-nowrap">
                 <CategoryBadge category={entry.category} />
               </th>
             ))}
-            <th scope="col" className="px-3 py-2 font-medium">Unacceptable</th>
-            <th scope="col" className="px-3 py-2 font-medium">Reviews overdue / due in 90 days</th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Unacceptable
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Reviews overdue / due in 90 days
+            </th>
           </tr>
         </thead>
         <tbody>

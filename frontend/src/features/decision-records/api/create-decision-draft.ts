@@ -9,5 +9,8 @@ export function createDecisionDraft(organizationId: string, groupId: string, dra
 }
 
 export function useCreateDecisionDraft(organizationId: string, groupId: string) {
-  return useOrganizationMutation(organizationId, (draft: DecisionDraftCreate) => createDecisionDraft(organizationId, groupId, draft), [orgKeys.decisionRecords, orgKeys.dashboard]);
+  return useOrganizationMutation(organizationId, (draft: DecisionDraftCreate) => createDecisionDraft(organizationId, groupId, draft), [
+    orgKeys.decisionRecords,
+    orgKeys.dashboard,
+  ]);
 }

@@ -9,7 +9,8 @@ import { orgKeys } from '@frontend/lib/query-keys';
  * comments (anyone who may comment). Every step answers the record as it is now.
  */
 
-export type DecisionStep = { step: 'approve' } | { step: 'return'; comment: string } | { step: 'resubmit' } | { step: 'acknowledge' } | { step: 'comments'; body: string };
+export type DecisionStep =
+  { step: 'approve' } | { step: 'return'; comment: string } | { step: 'resubmit' } | { step: 'acknowledge' } | { step: 'comments'; body: string };
 
 export function reviewDecision(organizationId: string, recordId: number, action: DecisionStep): Promise<DecisionRecordView> {
   const { step, ...body } = action;
@@ -17,5 +18,8 @@ export function reviewDecision(organizationId: string, recordId: number, action:
 }
 
 export function useReviewDecision(organizationId: string, recordId: number) {
-  return useOrganizationMutation(organizationId, (action: DecisionStep) => reviewDecision(organizationId, recordId, action), [orgKeys.decisionRecords, orgKeys.dashboard]);
+  return useOrganizationMutation(organizationId, (action: DecisionStep) => reviewDecision(organizationId, recordId, action), [
+    orgKeys.decisionRecords,
+    orgKeys.dashboard,
+  ]);
 }

@@ -9,5 +9,8 @@ export function updateDecisionDraft(organizationId: string, recordId: number, ch
 }
 
 export function useUpdateDecisionDraft(organizationId: string, recordId: number) {
-  return useOrganizationMutation(organizationId, (changes: DecisionDraftUpdate) => updateDecisionDraft(organizationId, recordId, changes), [orgKeys.decisionRecords, orgKeys.dashboard]);
+  return useOrganizationMutation(organizationId, (changes: DecisionDraftUpdate) => updateDecisionDraft(organizationId, recordId, changes), [
+    orgKeys.decisionRecords,
+    orgKeys.dashboard,
+  ]);
 }

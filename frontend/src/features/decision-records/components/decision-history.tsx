@@ -25,18 +25,28 @@ export function DecisionHistory({ organizationId, history }: { organizationId: s
             <p className="mt-1 text-sm text-slate-600">No change in category, judgement, review date or the main figures.</p>
           ) : (
             <table className="mt-2 w-full text-sm">
-              <caption className="sr-only">Changes from record {step.fromId} to record {step.toId}</caption>
+              <caption className="sr-only">
+                Changes from record {step.fromId} to record {step.toId}
+              </caption>
               <thead className="text-left text-xs text-slate-600">
                 <tr>
-                  <th scope="col" className="py-1 pr-3 font-medium">What</th>
-                  <th scope="col" className="py-1 pr-3 font-medium">Before</th>
-                  <th scope="col" className="py-1 font-medium">After</th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    What
+                  </th>
+                  <th scope="col" className="py-1 pr-3 font-medium">
+                    Before
+                  </th>
+                  <th scope="col" className="py-1 font-medium">
+                    After
+                  </th>
                 </tr>
               </thead>
               <tbody>
                 {step.changes.map((change) => (
                   <tr key={change.field} className="border-t border-slate-100">
-                    <th scope="row" className="py-1 pr-3 text-left font-normal text-slate-700">{change.label}</th>
+                    <th scope="row" className="py-1 pr-3 text-left font-normal text-slate-700">
+                      {change.label}
+                    </th>
                     <td className="py-1 pr-3 tabular-nums">{show(change, change.before)}</td>
                     <td className="py-1 font-medium tabular-nums">{show(change, change.after)}</td>
                   </tr>

@@ -5,21 +5,49 @@ import { formatCalendarDate, formatDate } from '@frontend/lib/format';
 import { DecisionJudgement, DecisionStatusBadge, OutOfDateMarker } from './decision-badges';
 
 /** The records of a group (or an organization) as a table: status, category, judgement, people, dates. */
-export function DecisionList({ organizationId, records, showGroup = false, caption }: { organizationId: string; records: DecisionRecordSummary[]; showGroup?: boolean; caption: string }) {
+export function DecisionList({
+  organizationId,
+  records,
+  showGroup = false,
+  caption,
+}: {
+  organizationId: string;
+  records: DecisionRecordSummary[];
+  showGroup?: boolean;
+  caption: string;
+}) {
   return (
     <div className="overflow-x-auto rounded-md border border-slate-200 bg-white">
       <table className="w-full text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-slate-50 text-left text-xs text-slate-600">
           <tr>
-            <th scope="col" className="px-3 py-2 font-medium">Record</th>
-            {showGroup && <th scope="col" className="px-3 py-2 font-medium">Exposure group</th>}
-            <th scope="col" className="px-3 py-2 font-medium">Status</th>
-            <th scope="col" className="px-3 py-2 font-medium">Category</th>
-            <th scope="col" className="px-3 py-2 font-medium">Judgement</th>
-            <th scope="col" className="px-3 py-2 font-medium">Drafted by</th>
-            <th scope="col" className="px-3 py-2 font-medium">Approved by</th>
-            <th scope="col" className="px-3 py-2 font-medium">Review date</th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Record
+            </th>
+            {showGroup && (
+              <th scope="col" className="px-3 py-2 font-medium">
+                Exposure group
+              </th>
+            )}
+            <th scope="col" className="px-3 py-2 font-medium">
+              Status
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Category
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Judgement
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Drafted by
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Approved by
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Review date
+            </th>
           </tr>
         </thead>
         <tbody>

@@ -78,8 +78,20 @@ export function DraftForm({
           {...form.register('judgement')}
         />
       </div>
-      <TextAreaField label="Rationale" rows={5} hint="Why this category and judgement: the data, the grouping, the fit, anything left out." error={errors.rationale?.message} {...form.register('rationale')} />
-      <TextAreaField label="Actions" rows={3} hint="Controls, protective equipment, more sampling; who and by when." error={errors.actions?.message} {...form.register('actions')} />
+      <TextAreaField
+        label="Rationale"
+        rows={5}
+        hint="Why this category and judgement: the data, the grouping, the fit, anything left out."
+        error={errors.rationale?.message}
+        {...form.register('rationale')}
+      />
+      <TextAreaField
+        label="Actions"
+        rows={3}
+        hint="Controls, protective equipment, more sampling; who and by when."
+        error={errors.actions?.message}
+        {...form.register('actions')}
+      />
       <TextField
         label="Review date"
         type="date"

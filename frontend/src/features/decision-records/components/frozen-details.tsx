@@ -38,10 +38,18 @@ export function FrozenDetails({ record }: { record: DecisionRecordView }) {
           <caption className="sr-only">Results frozen in this record</caption>
           <thead className="text-left text-xs text-slate-600">
             <tr>
-              <th scope="col" className="py-1 pr-3 font-medium">Result</th>
-              <th scope="col" className="py-1 pr-3 font-medium">Worker</th>
-              <th scope="col" className="py-1 pr-3 font-medium">Date</th>
-              <th scope="col" className="py-1 font-medium">Value</th>
+              <th scope="col" className="py-1 pr-3 font-medium">
+                Result
+              </th>
+              <th scope="col" className="py-1 pr-3 font-medium">
+                Worker
+              </th>
+              <th scope="col" className="py-1 pr-3 font-medium">
+                Date
+              </th>
+              <th scope="col" className="py-1 font-medium">
+                Value
+              </th>
             </tr>
           </thead>
           <tbody>

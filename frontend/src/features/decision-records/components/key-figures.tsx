@@ -27,7 +27,9 @@ export function KeyFigures({ figures, caption }: { figures: KeyFigureValues; cap
       <tbody>
         {rows.map(([label, value]) => (
           <tr key={label} className="border-t border-slate-100">
-            <th scope="row" className="py-1 pr-3 text-left font-normal text-slate-700">{label}</th>
+            <th scope="row" className="py-1 pr-3 text-left font-normal text-slate-700">
+              {label}
+            </th>
             <td className="py-1 text-right font-medium tabular-nums">{value}</td>
           </tr>
         ))}

@@ -40,7 +40,13 @@ export function ReviewPanel({ record, isDrafter, run }: { record: DecisionRecord
         <Notice tone="warning">The group's results changed after this was drafted: approval freezes the data as it is now.</Notice>
       )}
       <div className="flex flex-wrap items-center gap-3">
-        <Button variant="primary" disabled={isDrafter || pending !== null} pending={pending === 'approve'} aria-describedby={isDrafter ? 'approve-reason' : undefined} onClick={() => act({ step: 'approve' })}>
+        <Button
+          variant="primary"
+          disabled={isDrafter || pending !== null}
+          pending={pending === 'approve'}
+          aria-describedby={isDrafter ? 'approve-reason' : undefined}
+          onClick={() => act({ step: 'approve' })}
+        >
           Approve
         </Button>
         {isDrafter && (

@@ -10,9 +10,10 @@ export function createExposureGroup(organizationId: string, group: ExposureGroup
 }
 
 export function useCreateExposureGroup(organizationId: string) {
-  return useOrganizationMutation(
-    organizationId,
-    (group: ExposureGroupCreate) => createExposureGroup(organizationId, group),
-    [orgKeys.exposureGroups, orgKeys.sites, orgKeys.agents, orgKeys.summary],
-  );
+  return useOrganizationMutation(organizationId, (group: ExposureGroupCreate) => createExposureGroup(organizationId, group), [
+    orgKeys.exposureGroups,
+    orgKeys.sites,
+    orgKeys.agents,
+    orgKeys.summary,
+  ]);
 }

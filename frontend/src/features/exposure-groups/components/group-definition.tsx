@@ -35,7 +35,7 @@ export function GroupDefinition({ overview }: { overview: GroupOverview }) {
           {agent.name}
           <span className="text-slate-600">
             {' '}
-            · {agent.kind === 'noise' ? 'noise' : 'chemical'}
+            · {agent.kind === 'noise' ? 'noise' : agent.kind === 'mixture' ? 'mixture (similar effects)' : 'chemical'}
             {agent.casNumber && `, CAS ${agent.casNumber}`}
             {agent.molecularWeight !== null && `, ${formatNumber(agent.molecularWeight, 6)} g/mol`}
           </span>

@@ -68,7 +68,17 @@ const formFields = [
 ] as const;
 
 /** Job titles, one per line: its own text while typing, an array for the form. */
-function JobTitlesField({ value, onChange, onBlur, error }: { value: string[] | undefined; onChange: (titles: string[]) => void; onBlur: () => void; error?: string }) {
+function JobTitlesField({
+  value,
+  onChange,
+  onBlur,
+  error,
+}: {
+  value: string[] | undefined;
+  onChange: (titles: string[]) => void;
+  onBlur: () => void;
+  error?: string;
+}) {
   const [text, setText] = useState(() => (value ?? []).join('\n'));
   return (
     <TextAreaField
@@ -185,26 +195,32 @@ export function GroupForm({
     if (oelMode === 'list' && entriesReady && oelEntries.length > 0 && form.getValues('oelEntryId') == null) form.setValue('oelEntryId', oelEntries[0].id);
   }, [oelMode, entriesReady, oelEntries, form]);
 
-  const submit = form.handleSubmit(async (values) => {
-    setFormError(null);
-    if (oelMode === 'list' && values.oelEntryId == null) {
-      form.setError('oelEntryId', { type: 'manual', message: 'Choose a limit from the OEL list, or type the limit in' });
-      return;
-    }
-    // From the list: the server copies value, unit, source and averaging time from the entry.
-    const input: ExposureGroupCreate =
-      oelMode === 'list'
-        ? { ...values, oelValue: undefined, oelUnit: undefined, oelSource: undefined, oelAveragingTime: undefined }
-        : { ...values, oelEntryId: null };
-    if (!briefScalaAllowed) input.extendedShiftAdjustment = 'none';
-    try {
-      onSaved(group ? await update.mutateAsync({ groupId: group.id, changes: input }) : await create.mutateAsync(input));
-    } catch (error) {
-      setFormError(applyServerErrorsInline(error, form.setError, formFields));
-    }
-  }, () => setFormError('Check the fields marked above.'));
+  const submit = form.handleSubmit(
+    async (values) => {
+      setFormError(null);
+      if (oelMode === 'list' && values.oelEntryId == null) {
+        form.setError('oelEntryId', { type: 'manual', message: 'Choose a limit from the OEL list, or type the limit in' });
+        return;
+      }
+      // From the list: the server copies value, unit, source and averaging time from the entry.
+      const input: ExposureGroupCreate =
+        oelMode === 'list'
+          ? { ...values, oelValue: undefined, oelUnit: undefined, oelSource: undefined, oelAveragingTime: undefined }
+          : { ...values, oelEntryId: null };
+      if (!briefScalaAllowed) input.extendedShiftAdjustment = 'none';
+      try {
+        onSaved(group ? await update.mutateAsync({ groupId: group.id, changes: input }) : await create.mutateAsync(input));
+      } catch (error) {
+        setFormError(applyServerErrorsInline(error, form.setError, formFields));
+      }
+    },
+    () => setFormError('Check the fields marked above.'),
+  );
 
-  const agentOptions = agents.map((choice) => ({ value: String(choice.id), label: `${choice.name} (${choice.kind === 'noise' ? 'noise' : 'chemical'})` }));
+  const agentOptions = agents.map((choice) => ({
+    value: String(choice.id),
+    label: `${choice.name} (${choice.kind === 'noise' ? 'noise' : choice.kind === 'mixture' ? 'mixture, OEL 1' : 'chemical'})`,
+  }));
   if (group && !agents.some((choice) => choice.id === group.agentId)) agentOptions.unshift({ value: String(group.agentId), label: group.agentName });
   const siteOptions = sites.map((site) => ({ value: String(site.id), label: site.name }));
   if (group && !sites.some((site) => site.id === group.siteId)) siteOptions.unshift({ value: String(group.siteId), label: group.siteName });
@@ -222,7 +238,13 @@ export function GroupForm({
       <fieldset className="card space-y-3 p-4">
         <legend className="px-1 text-sm font-semibold text-slate-900">Who and where</legend>
         <div className="grid gap-3 md:grid-cols-2">
-          <TextField label="Name" autoComplete="off" hint="Job and agent, e.g. “Planer feeder – noise”." error={errors.name?.message} {...form.register('name')} />
+          <TextField
+            label="Name"
+            autoComplete="off"
+            hint="Job and agent, e.g. “Planer feeder – noise”."
+            error={errors.name?.message}
+            {...form.register('name')}
+          />
           <SelectField label="Site" options={siteOptions} error={errors.siteId?.message} {...form.register('siteId', { setValueAs: idOrUndefined })} />
           <TextField label="Process or area" autoComplete="off" error={errors.processArea?.message} {...form.register('processArea')} />
           <Controller
@@ -310,7 +332,12 @@ export function GroupForm({
           />
         ) : (
           <div className="grid gap-3 md:grid-cols-[8rem_10rem_1fr_14rem]">
-            <TextField label="OEL value" inputMode="decimal" error={errors.oelValue?.message} {...form.register('oelValue', { setValueAs: numberOrUndefined })} />
+            <TextField
+              label="OEL value"
+              inputMode="decimal"
+              error={errors.oelValue?.message}
+              {...form.register('oelValue', { setValueAs: numberOrUndefined })}
+            />
             <SelectField
               label="Unit"
               options={units.map((unit) => ({ value: unit, label: exposureUnitLabels[unit] }))}

@@ -13,7 +13,19 @@ import { OelText } from './oel-text';
 const column = createColumnHelper<ListTableFeatures, ExposureGroupView>();
 
 /** Exposure groups, sorted and paged by the server; the name opens the group's page. */
-export function GroupsTable({ organizationId, page, params, busy, canEdit }: { organizationId: string; page: ListPage<ExposureGroupView>; params: ListParams; busy: boolean; canEdit: boolean }) {
+export function GroupsTable({
+  organizationId,
+  page,
+  params,
+  busy,
+  canEdit,
+}: {
+  organizationId: string;
+  page: ListPage<ExposureGroupView>;
+  params: ListParams;
+  busy: boolean;
+  canEdit: boolean;
+}) {
   const columns = useMemo(
     () =>
       column.columns([

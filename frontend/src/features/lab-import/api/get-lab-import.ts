@@ -9,7 +9,10 @@ export function getLabImport(organizationId: string, batchId: string, signal?: A
 }
 
 export function labImportQuery(organizationId: string, batchId: string) {
-  return queryOptions({ queryKey: [...orgKeys.labImports(organizationId), 'one', batchId] as const, queryFn: ({ signal }) => getLabImport(organizationId, batchId, signal) });
+  return queryOptions({
+    queryKey: [...orgKeys.labImports(organizationId), 'one', batchId] as const,
+    queryFn: ({ signal }) => getLabImport(organizationId, batchId, signal),
+  });
 }
 
 export function useLabImport(organizationId: string, batchId: string) {

@@ -11,7 +11,8 @@ export function FilePreview({ preview }: { preview: LabImportPreview }) {
         What the file holds
       </h2>
       <p className="text-sm text-slate-600">
-        {preview.rowCount} data row{preview.rowCount === 1 ? '' : 's'}, {names.length} columns, separated by a {delimiterNames[preview.delimiter] ?? `“${preview.delimiter}”`}.
+        {preview.rowCount} data row{preview.rowCount === 1 ? '' : 's'}, {names.length} columns, separated by a{' '}
+        {delimiterNames[preview.delimiter] ?? `“${preview.delimiter}”`}.
         {preview.rows.length < preview.rowCount && ` The first ${preview.rows.length} rows are shown.`}
       </p>
       <div className="card max-h-80 overflow-auto">

@@ -26,8 +26,8 @@ export function ImportSummary({ organizationId, batch, results }: { organization
         Imported {batch.resultCount} shift result{batch.resultCount === 1 ? '' : 's'} from “{batch.fileName}”
       </h2>
       <p>
-        Committed {formatDateTime(batch.committedAt)}. The file is kept with its SHA-256 <code className="text-xs break-all">{batch.sha256}</code>, so every result traces back
-        to these bytes.
+        Committed {formatDateTime(batch.committedAt)}. The file is kept with its SHA-256 <code className="text-xs break-all">{batch.sha256}</code>, so every
+        result traces back to these bytes.
         {assumption && ` Shifts with several samples: ${assumptionWords[assumption] ?? assumption}.`}
       </p>
       <ul className="space-y-1">

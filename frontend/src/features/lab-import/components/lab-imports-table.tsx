@@ -12,7 +12,17 @@ import type { ImportBatchSummary } from '../api/types';
 const column = createColumnHelper<ListTableFeatures, ImportBatchSummary>();
 
 /** Earlier lab files, newest first: imported ones with their result count, others still waiting for a mapping. */
-export function LabImportsTable({ organizationId, page, params, busy }: { organizationId: string; page: ListPage<ImportBatchSummary>; params: ListParams; busy: boolean }) {
+export function LabImportsTable({
+  organizationId,
+  page,
+  params,
+  busy,
+}: {
+  organizationId: string;
+  page: ListPage<ImportBatchSummary>;
+  params: ListParams;
+  busy: boolean;
+}) {
   const columns = useMemo(
     () =>
       column.columns([
@@ -25,7 +35,11 @@ export function LabImportsTable({ organizationId, page, params, busy }: { organi
             </Link>
           ),
         }),
-        column.accessor('createdAt', { header: 'Uploaded', enableSorting: false, cell: (info) => <span className="tabular-nums">{formatDateTime(info.getValue())}</span> }),
+        column.accessor('createdAt', {
+          header: 'Uploaded',
+          enableSorting: false,
+          cell: (info) => <span className="tabular-nums">{formatDateTime(info.getValue())}</span>,
+        }),
         column.accessor('rowCount', { header: 'Rows', enableSorting: false, cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
         column.accessor('status', {
           header: 'Status',

@@ -95,7 +95,9 @@ export function MappingForm({
       shiftHours: undefined,
     },
   });
-  const [outcome, setOutcome] = useState<{ kind: 'checked'; check: LabImportCheck } | { kind: 'problems'; problems: LabImportProblem[] } | { kind: 'error'; message: string } | null>(null);
+  const [outcome, setOutcome] = useState<
+    { kind: 'checked'; check: LabImportCheck } | { kind: 'problems'; problems: LabImportProblem[] } | { kind: 'error'; message: string } | null
+  >(null);
   const [action, setAction] = useState<'check' | 'commit'>('check');
   const { errors, isSubmitting } = form.formState;
   const assumptionName = useId();
@@ -116,7 +118,10 @@ export function MappingForm({
       // A mapped column wins over a value for every row: send only what applies.
       const input: LabImportCommit = {
         ...values,
-        defaults: { exposureGroupId: values.mapping.group ? undefined : values.defaults.exposureGroupId, unit: values.mapping.unit ? undefined : values.defaults.unit },
+        defaults: {
+          exposureGroupId: values.mapping.group ? undefined : values.defaults.exposureGroupId,
+          unit: values.mapping.unit ? undefined : values.defaults.unit,
+        },
       };
       try {
         if (which === 'check') setOutcome({ kind: 'checked', check: await check.mutateAsync({ batchId: batch.id, commit: input }) });
@@ -215,13 +220,17 @@ export function MappingForm({
         <fieldset className="space-y-2" aria-describedby={`${assumptionName}-hint`}>
           <legend className="text-sm font-medium text-slate-800">Several samples in one shift: what does the unsampled time count as?</legend>
           <p id={`${assumptionName}-hint`} className="text-xs text-slate-600">
-            Samples of the same worker, date and group are combined into one shift TWA, Σ(concentration × minutes) ÷ time. It needs the samples' minutes (or start and end
-            times), and a choice for the part of the shift no sample covered. Each result records the choice in words.
+            Samples of the same worker, date and group are combined into one shift TWA, Σ(concentration × minutes) ÷ time. It needs the samples' minutes (or
+            start and end times), and a choice for the part of the shift no sample covered. Each result records the choice in words.
           </p>
           <div className="grid gap-2 md:grid-cols-3">
             {[
               ...assumptions,
-              { value: '', label: 'Nothing to combine', text: 'Every row is already a whole-shift result. If a shift turns out to need combining, the check says which.' },
+              {
+                value: '',
+                label: 'Nothing to combine',
+                text: 'Every row is already a whole-shift result. If a shift turns out to need combining, the check says which.',
+              },
             ].map((option) => (
               <label
                 key={option.value}
@@ -248,12 +257,14 @@ export function MappingForm({
           {errors.unsampledTime?.message && <p className="text-xs font-medium text-red-800">{errors.unsampledTime.message}</p>}
         </fieldset>
         <p className="text-xs text-slate-600">
-          Long shifts: a group judged with the Brief & Scala extended-shift adjustment has its limit lowered on the group itself (edit the group to change it); the imported
-          results are stored as measured.
+          Long shifts: a group judged with the Brief & Scala extended-shift adjustment has its limit lowered on the group itself (edit the group to change it);
+          the imported results are stored as measured.
         </p>
       </section>
 
-      {outcome?.kind === 'problems' && <ImportProblems problems={outcome.problems} title={action === 'commit' ? 'The file was not imported' : 'The check found problems'} />}
+      {outcome?.kind === 'problems' && (
+        <ImportProblems problems={outcome.problems} title={action === 'commit' ? 'The file was not imported' : 'The check found problems'} />
+      )}
       {outcome?.kind === 'error' && <Notice tone="error">{outcome.message}</Notice>}
       {outcome?.kind === 'checked' && <CheckedResults check={outcome.check} />}
 

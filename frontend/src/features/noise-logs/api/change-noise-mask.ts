@@ -13,7 +13,8 @@ export type MaskChange =
 export function changeNoiseMask(organizationId: string, logId: string, change: MaskChange) {
   const base = apiPath('/api/orgs', organizationId, 'noise-logs', logId, 'masks');
   if (change.kind === 'add') return api.post<NoiseLogDetail>(base, { startS: change.startS, endS: change.endS, reason: change.reason });
-  if (change.kind === 'change') return api.patch<NoiseLogDetail>(`${base}/${change.maskId}`, { startS: change.startS, endS: change.endS, reason: change.reason });
+  if (change.kind === 'change')
+    return api.patch<NoiseLogDetail>(`${base}/${change.maskId}`, { startS: change.startS, endS: change.endS, reason: change.reason });
   return api.post<NoiseLogDetail>(`${base}/${change.maskId}/remove`, { reason: change.reason });
 }
 

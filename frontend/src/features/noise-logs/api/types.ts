@@ -65,7 +65,14 @@ export interface NoiseLogDetail extends NoiseLogListItem {
   settings: Record<string, number>;
   intervalCount: number;
   acceptedAt: string | null;
-  group: { id: number; name: string; noiseCriteriaSet: 'oshaPel' | 'oshaHc' | 'nioshRel' | 'iso' | null; oelUnit: string; oelValue: number; dataVersion: number };
+  group: {
+    id: number;
+    name: string;
+    noiseCriteriaSet: 'oshaPel' | 'oshaHc' | 'nioshRel' | 'iso' | null;
+    oelUnit: string;
+    oelValue: number;
+    dataVersion: number;
+  };
   figures: {
     runSeconds: number;
     intervalSeconds: number;

@@ -36,7 +36,15 @@ export function MaskDialog({
   );
 }
 
-function MaskForm({ state, onClose, onSave }: { state: MaskDialogState; onClose: () => void; onSave: (values: { startS: number; endS: number; reason: string }) => Promise<unknown> }) {
+function MaskForm({
+  state,
+  onClose,
+  onSave,
+}: {
+  state: MaskDialogState;
+  onClose: () => void;
+  onSave: (values: { startS: number; endS: number; reason: string }) => Promise<unknown>;
+}) {
   const [start, setStart] = useState(String(Math.round(state.startS * 10) / 10));
   const [end, setEnd] = useState(String(Math.round(state.endS * 10) / 10));
   const [reason, setReason] = useState('');
@@ -78,8 +86,22 @@ function MaskForm({ state, onClose, onSave }: { state: MaskDialogState; onClose:
         </p>
       ) : (
         <div className="grid grid-cols-2 gap-3">
-          <TextField label="Start, s from log start" inputMode="decimal" value={start} onChange={(e) => setStart(e.target.value)} error={fields.startS} hint={Number.isFinite(startS) ? clockTime(startS) : undefined} />
-          <TextField label="End, s from log start" inputMode="decimal" value={end} onChange={(e) => setEnd(e.target.value)} error={fields.endS} hint={Number.isFinite(endS) ? clockTime(endS) : undefined} />
+          <TextField
+            label="Start, s from log start"
+            inputMode="decimal"
+            value={start}
+            onChange={(e) => setStart(e.target.value)}
+            error={fields.startS}
+            hint={Number.isFinite(startS) ? clockTime(startS) : undefined}
+          />
+          <TextField
+            label="End, s from log start"
+            inputMode="decimal"
+            value={end}
+            onChange={(e) => setEnd(e.target.value)}
+            error={fields.endS}
+            hint={Number.isFinite(endS) ? clockTime(endS) : undefined}
+          />
         </div>
       )}
       <TextField label="Reason" value={reason} onChange={(e) => setReason(e.target.value)} error={fields.reason} maxLength={500} />

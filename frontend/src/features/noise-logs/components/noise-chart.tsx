@@ -142,12 +142,32 @@ export default function NoiseChart({ log, channels, mode, onSelectSpan, onWindow
     legend: { orientation: 'h', x: 0, y: 1.08 },
     xaxis: { title: { text: 'Minutes from the log start' }, gridcolor: '#e2e8f0', zeroline: false, anchor: 'y2', uirevision: 'time' } as Layout['xaxis'],
     yaxis: { title: { text: 'dB' }, domain: [0.28, 1], range: [low, high], gridcolor: '#e2e8f0', fixedrange: true },
-    yaxis2: { domain: [0, 0.18], range: [0, 1], showticklabels: false, showgrid: false, zeroline: false, fixedrange: true, title: { text: 'Wear', font: { size: 11 } } },
+    yaxis2: {
+      domain: [0, 0.18],
+      range: [0, 1],
+      showticklabels: false,
+      showgrid: false,
+      zeroline: false,
+      fixedrange: true,
+      title: { text: 'Wear', font: { size: 11 } },
+    },
     shapes: [
       // 85 dBA: the hearing conservation trigger expressed as a level (OSHA 1910.95(c)).
       { type: 'line', xref: 'paper', x0: 0, x1: 1, yref: 'y', y0: 85, y1: 85, line: { color: colours.action, width: 1, dash: 'dash' } },
     ],
-    annotations: [{ xref: 'paper', x: 1, yref: 'y', y: 85, text: '85 dBA', showarrow: false, xanchor: 'right', yanchor: 'bottom', font: { size: 10, color: colours.action } }],
+    annotations: [
+      {
+        xref: 'paper',
+        x: 1,
+        yref: 'y',
+        y: 85,
+        text: '85 dBA',
+        showarrow: false,
+        xanchor: 'right',
+        yanchor: 'bottom',
+        font: { size: 10, color: colours.action },
+      },
+    ],
     uirevision: log.id,
   };
 

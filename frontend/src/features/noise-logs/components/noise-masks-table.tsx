@@ -22,14 +22,32 @@ export function NoiseMasksTable({
       <table className="min-w-full text-sm" aria-label="Masked spans">
         <thead>
           <tr className="border-b border-slate-300 text-left text-slate-600">
-            <th scope="col" className="py-1.5 pr-3 font-medium">Start</th>
-            <th scope="col" className="py-1.5 pr-3 font-medium">End</th>
-            <th scope="col" className="py-1.5 pr-3 font-medium">Masked</th>
-            <th scope="col" className="py-1.5 pr-3 font-medium">Reason</th>
-            <th scope="col" className="py-1.5 pr-3 font-medium">Origin</th>
-            <th scope="col" className="py-1.5 pr-3 font-medium">Author</th>
-            <th scope="col" className="py-1.5 pr-3 text-right font-medium">Dose change alone</th>
-            {canEdit && <th scope="col" className="py-1.5 font-medium"><span className="sr-only">Actions</span></th>}
+            <th scope="col" className="py-1.5 pr-3 font-medium">
+              Start
+            </th>
+            <th scope="col" className="py-1.5 pr-3 font-medium">
+              End
+            </th>
+            <th scope="col" className="py-1.5 pr-3 font-medium">
+              Masked
+            </th>
+            <th scope="col" className="py-1.5 pr-3 font-medium">
+              Reason
+            </th>
+            <th scope="col" className="py-1.5 pr-3 font-medium">
+              Origin
+            </th>
+            <th scope="col" className="py-1.5 pr-3 font-medium">
+              Author
+            </th>
+            <th scope="col" className="py-1.5 pr-3 text-right font-medium">
+              Dose change alone
+            </th>
+            {canEdit && (
+              <th scope="col" className="py-1.5 font-medium">
+                <span className="sr-only">Actions</span>
+              </th>
+            )}
           </tr>
         </thead>
         <tbody>
@@ -56,7 +74,9 @@ export function NoiseMasksTable({
           ))}
         </tbody>
       </table>
-      <p className="mt-1 text-xs text-slate-600">Dose change in percentage points of the group's criteria set, for each mask on its own. Removed masks stay in the audit trail.</p>
+      <p className="mt-1 text-xs text-slate-600">
+        Dose change in percentage points of the group's criteria set, for each mask on its own. Removed masks stay in the audit trail.
+      </p>
     </div>
   );
 }

@@ -147,15 +147,34 @@ export function NoiseUploadForm({
           <label htmlFor="noise-file" className="block text-sm font-medium text-slate-800">
             Noise log file (.csv, at most 50 MB)
           </label>
-          <input id="noise-file" type="file" accept=".csv,.txt,text/csv" className="block text-sm" onChange={(event) => void choose(event.target.files?.[0] ?? null)} aria-describedby="noise-file-hint" />
+          <input
+            id="noise-file"
+            type="file"
+            accept=".csv,.txt,text/csv"
+            className="block text-sm"
+            onChange={(event) => void choose(event.target.files?.[0] ?? null)}
+            aria-describedby="noise-file-hint"
+          />
           <p id="noise-file-hint" className="text-xs text-slate-600">
             Our noise log format version 1 is read as it is; any other CSV asks which column holds what.
           </p>
           {problems.file && <p className="text-xs font-medium text-red-800">{problems.file}</p>}
         </div>
         <TextField label="Instrument" value={instrument} onChange={(event) => setInstrument(event.target.value)} hint="Blank: taken from the file" />
-        <SelectField label="Exposure group" value={groupId} onChange={(event) => setGroupId(event.target.value)} options={[{ value: '', label: 'Pick a noise group' }, ...groups]} error={problems.exposureGroupId} />
-        <SelectField label="Worker" value={workerId} onChange={(event) => setWorkerId(event.target.value)} options={[{ value: '', label: 'Pick a worker' }, ...workers]} error={problems.workerId} />
+        <SelectField
+          label="Exposure group"
+          value={groupId}
+          onChange={(event) => setGroupId(event.target.value)}
+          options={[{ value: '', label: 'Pick a noise group' }, ...groups]}
+          error={problems.exposureGroupId}
+        />
+        <SelectField
+          label="Worker"
+          value={workerId}
+          onChange={(event) => setWorkerId(event.target.value)}
+          options={[{ value: '', label: 'Pick a worker' }, ...workers]}
+          error={problems.workerId}
+        />
         <TextField label="Shift date" type="date" value={shiftDate} onChange={(event) => setShiftDate(event.target.value)} error={problems.shiftDate} />
       </div>
 
@@ -190,8 +209,23 @@ export function NoiseUploadForm({
           )}
           <div className="grid gap-3 sm:grid-cols-3">
             {mapSelect('time', 'Time column', true)}
-            <SelectField label="Time unit" value={mapping.timeUnit} onChange={(event) => setMapping({ ...mapping, timeUnit: event.target.value })} options={[{ value: 's', label: 'seconds' }, { value: 'ms', label: 'milliseconds' }, { value: 'min', label: 'minutes' }]} />
-            <TextField label="Interval, s" inputMode="decimal" value={mapping.intervalSeconds} onChange={(event) => setMapping({ ...mapping, intervalSeconds: event.target.value })} error={problems.intervalSeconds} />
+            <SelectField
+              label="Time unit"
+              value={mapping.timeUnit}
+              onChange={(event) => setMapping({ ...mapping, timeUnit: event.target.value })}
+              options={[
+                { value: 's', label: 'seconds' },
+                { value: 'ms', label: 'milliseconds' },
+                { value: 'min', label: 'minutes' },
+              ]}
+            />
+            <TextField
+              label="Interval, s"
+              inputMode="decimal"
+              value={mapping.intervalSeconds}
+              onChange={(event) => setMapping({ ...mapping, intervalSeconds: event.target.value })}
+              error={problems.intervalSeconds}
+            />
             {mapSelect('level', 'A-weighted level (LAeq), dB', true)}
             {mapSelect('peak', 'C-weighted peak, dB')}
             {mapSelect('moving', 'Motion flag (0/1)')}
@@ -199,17 +233,42 @@ export function NoiseUploadForm({
             {mapSelect('accelerationY', 'Acceleration y')}
             {mapSelect('accelerationZ', 'Acceleration z')}
             {mapSelect('accelerationPeak', 'Peak acceleration')}
-            <SelectField label="Acceleration unit" value={mapping.accelerationUnit} onChange={(event) => setMapping({ ...mapping, accelerationUnit: event.target.value })} options={[{ value: 'mg', label: 'milli-g' }, { value: 'g', label: 'g' }]} />
-            <TextField label="Save this mapping as" value={mapping.presetName} onChange={(event) => setMapping({ ...mapping, presetName: event.target.value })} hint="Optional name of a preset" />
+            <SelectField
+              label="Acceleration unit"
+              value={mapping.accelerationUnit}
+              onChange={(event) => setMapping({ ...mapping, accelerationUnit: event.target.value })}
+              options={[
+                { value: 'mg', label: 'milli-g' },
+                { value: 'g', label: 'g' },
+              ]}
+            />
+            <TextField
+              label="Save this mapping as"
+              value={mapping.presetName}
+              onChange={(event) => setMapping({ ...mapping, presetName: event.target.value })}
+              hint="Optional name of a preset"
+            />
           </div>
           <div className="overflow-x-auto">
             <table className="text-xs" aria-label="First rows of the file">
               <thead>
-                <tr>{preview.headers.map((header) => <th key={header} scope="col" className="border-b border-slate-300 px-2 py-1 text-left">{header}</th>)}</tr>
+                <tr>
+                  {preview.headers.map((header) => (
+                    <th key={header} scope="col" className="border-b border-slate-300 px-2 py-1 text-left">
+                      {header}
+                    </th>
+                  ))}
+                </tr>
               </thead>
               <tbody>
                 {preview.rows.slice(0, 5).map((row, index) => (
-                  <tr key={index}>{row.map((cell, column) => <td key={column} className="px-2 py-0.5 tabular-nums">{cell}</td>)}</tr>
+                  <tr key={index}>
+                    {row.map((cell, column) => (
+                      <td key={column} className="px-2 py-0.5 tabular-nums">
+                        {cell}
+                      </td>
+                    ))}
+                  </tr>
                 ))}
               </tbody>
             </table>
@@ -219,7 +278,9 @@ export function NoiseUploadForm({
 
       {progress !== null && upload.isPending && (
         <div>
-          <label htmlFor="noise-upload-progress" className="text-sm">Uploading… {Math.round(progress * 100)} %</label>
+          <label htmlFor="noise-upload-progress" className="text-sm">
+            Uploading… {Math.round(progress * 100)} %
+          </label>
           <progress id="noise-upload-progress" className="block h-2 w-full" max={1} value={progress} />
         </div>
       )}

@@ -5,6 +5,8 @@ import { outboxKey, type OutboxEntry } from './get-outbox';
 export interface OutboxMessage extends OutboxEntry {
   text: string | null;
   html: string | null;
+  /** Attached files by name, type and size (bytes); the capture keeps their content. */
+  attachments?: Array<{ filename: string; contentType: string; size: number }>;
 }
 
 /** GET /api/outbox/:id. */

@@ -43,6 +43,21 @@ export function MessageView({ message }: { message: OutboxMessage }) {
         </section>
       )}
 
+      {message.attachments && message.attachments.length > 0 && (
+        <section aria-labelledby="message-attachments" className="mt-4">
+          <h3 id="message-attachments" className="text-sm">
+            Attachments
+          </h3>
+          <ul className="mt-1 space-y-0.5 text-sm">
+            {message.attachments.map((attachment) => (
+              <li key={attachment.filename}>
+                {attachment.filename} ({attachment.contentType}, {Math.max(1, Math.round(attachment.size / 1024))} KB)
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
+
       <section aria-labelledby="message-text" className="mt-4">
         <h3 id="message-text" className="text-sm">
           Text version

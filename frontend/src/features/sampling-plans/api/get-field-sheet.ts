@@ -47,7 +47,10 @@ export function getFieldSheet(organizationId: string, planId: string, signal?: A
 }
 
 export function fieldSheetQuery(organizationId: string, planId: string) {
-  return queryOptions({ queryKey: [...orgKeys.samplingPlans(organizationId), 'field-sheet', planId] as const, queryFn: ({ signal }) => getFieldSheet(organizationId, planId, signal) });
+  return queryOptions({
+    queryKey: [...orgKeys.samplingPlans(organizationId), 'field-sheet', planId] as const,
+    queryFn: ({ signal }) => getFieldSheet(organizationId, planId, signal),
+  });
 }
 
 export function useFieldSheet(organizationId: string, planId: string) {

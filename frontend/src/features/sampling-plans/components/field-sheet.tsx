@@ -55,12 +55,13 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
             </h1>
             <p className="text-sm">
               {agent.name}
-              {agent.casNumber && ` (CAS ${agent.casNumber})`} · OEL {formatNumber(group.oel.value, 6)} {unit}, {averagingTimeLabels[group.oel.averagingTime]} ({group.oel.source})
-              {group.actionLevel !== null && ` · action level ${formatNumber(group.actionLevel, 6)} ${unit}`} · shift {formatNumber(group.shiftHours)} h
+              {agent.casNumber && ` (CAS ${agent.casNumber})`} · OEL {formatNumber(group.oel.value, 6)} {unit}, {averagingTimeLabels[group.oel.averagingTime]} (
+              {group.oel.source}){group.actionLevel !== null && ` · action level ${formatNumber(group.actionLevel, 6)} ${unit}`} · shift{' '}
+              {formatNumber(group.shiftHours)} h
             </p>
             <p className="text-xs text-slate-700 tabular-nums">
-              {plan.title || `Plan ${plan.id}`} · {formatCalendarDate(plan.startDate)} – {formatCalendarDate(plan.endDate)} · seed {plan.seed}, draw {plan.draw} ·{' '}
-              {plan.targetCount} shifts planned
+              {plan.title || `Plan ${plan.id}`} · {formatCalendarDate(plan.startDate)} – {formatCalendarDate(plan.endDate)} · seed {plan.seed}, draw {plan.draw}{' '}
+              · {plan.targetCount} shifts planned
             </p>
           </header>
           {pageIndex === 0 && (

@@ -90,7 +90,12 @@ export function PlanForm({
         <TextField label="From" type="date" error={errors.startDate?.message} {...form.register('startDate')} />
         <TextField label="To" type="date" error={errors.endDate?.message} {...form.register('endDate')} />
       </div>
-      <CheckboxField label="Include Saturdays and Sundays" hint="Leave off when the group works weekdays only." error={errors.includeWeekends?.message} {...form.register('includeWeekends')} />
+      <CheckboxField
+        label="Include Saturdays and Sundays"
+        hint="Leave off when the group works weekdays only."
+        error={errors.includeWeekends?.message}
+        {...form.register('includeWeekends')}
+      />
       {!plan && (
         <TextField
           label="Seed (optional)"

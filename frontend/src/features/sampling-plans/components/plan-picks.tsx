@@ -34,8 +34,15 @@ export function PlanPicks({ organizationId, picks, canSeeNames }: { organization
             </Link>
           ),
         }),
-        ...(canSeeNames ? [column.accessor((pick) => pick.worker.name ?? '', { id: 'name', header: 'Name', sortFn: 'alphanumeric', cell: (info) => info.getValue() || '—' })] : []),
-        column.accessor((pick) => pick.worker.jobTitle, { id: 'jobTitle', header: 'Job title', sortFn: 'alphanumeric', cell: (info) => info.getValue() || '—' }),
+        ...(canSeeNames
+          ? [column.accessor((pick) => pick.worker.name ?? '', { id: 'name', header: 'Name', sortFn: 'alphanumeric', cell: (info) => info.getValue() || '—' })]
+          : []),
+        column.accessor((pick) => pick.worker.jobTitle, {
+          id: 'jobTitle',
+          header: 'Job title',
+          sortFn: 'alphanumeric',
+          cell: (info) => info.getValue() || '—',
+        }),
         column.accessor((pick) => (pick.done ? 1 : 0), {
           id: 'done',
           header: 'Measured',
@@ -48,7 +55,11 @@ export function PlanPicks({ organizationId, picks, canSeeNames }: { organization
   const table = useClientListTable({ columns, data: picks, initialSorting: [{ id: 'date', desc: false }], getRowId: (pick) => String(pick.id) });
   return (
     <div className="space-y-2">
-      <DataTable table={table} caption="Picked worker-shifts" empty={<EmptyState title="No picks">No member of the group works on a day of the plan's window.</EmptyState>} />
+      <DataTable
+        table={table}
+        caption="Picked worker-shifts"
+        empty={<EmptyState title="No picks">No member of the group works on a day of the plan's window.</EmptyState>}
+      />
       {picks.length > 25 && <TablePager table={table} noun="picks" />}
     </div>
   );

@@ -188,7 +188,12 @@ export function PlanSection({
           }}
         />
       </Dialog>
-      <Dialog open={dialog === 'redraw'} onClose={() => setDialog(null)} title="Redraw the picks" description="The plan keeps its target and window; a new seed picks other worker-shifts. The earlier draw is kept.">
+      <Dialog
+        open={dialog === 'redraw'}
+        onClose={() => setDialog(null)}
+        title="Redraw the picks"
+        description="The plan keeps its target and window; a new seed picks other worker-shifts. The earlier draw is kept."
+      >
         {plan && (
           <RedrawForm
             organizationId={organizationId}

@@ -13,9 +13,22 @@ const numberOrUndefined = (value: unknown) => (value === '' || value === null ||
 const emptyToUndefined = (value: unknown) => (value === '' ? undefined : value);
 
 /** New picks from a new seed; the old draw is kept, and the reason goes to the audit trail. */
-export function RedrawForm({ organizationId, plan, onSaved, onCancel }: { organizationId: string; plan: PlanView; onSaved: (plan: PlanView) => void; onCancel: () => void }) {
+export function RedrawForm({
+  organizationId,
+  plan,
+  onSaved,
+  onCancel,
+}: {
+  organizationId: string;
+  plan: PlanView;
+  onSaved: (plan: PlanView) => void;
+  onCancel: () => void;
+}) {
   const redraw = useRedrawSamplingPlan(organizationId);
-  const form = useForm<z.input<typeof samplingPlanRedraw>, unknown, SamplingPlanRedraw>({ resolver: zodResolver(samplingPlanRedraw), defaultValues: { seed: undefined, reason: '' } });
+  const form = useForm<z.input<typeof samplingPlanRedraw>, unknown, SamplingPlanRedraw>({
+    resolver: zodResolver(samplingPlanRedraw),
+    defaultValues: { seed: undefined, reason: '' },
+  });
   const [formError, setFormError] = useState<string | null>(null);
   const { errors, isSubmitting } = form.formState;
   const submit = form.handleSubmit(async (values) => {

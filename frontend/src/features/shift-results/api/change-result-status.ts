@@ -15,7 +15,8 @@ export function changeResultStatus(organizationId: string, resultId: number, act
 export function useChangeResultStatus(organizationId: string) {
   return useOrganizationMutation(
     organizationId,
-    ({ resultId, action, reason }: { resultId: number; action: 'void' | 'restore'; reason: string }) => changeResultStatus(organizationId, resultId, action, reason),
+    ({ resultId, action, reason }: { resultId: number; action: 'void' | 'restore'; reason: string }) =>
+      changeResultStatus(organizationId, resultId, action, reason),
     resultTouches,
   );
 }

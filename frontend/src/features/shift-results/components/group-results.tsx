@@ -66,10 +66,17 @@ export function GroupResults({
           <h2 id="results-title" className="text-base">
             Shift results
           </h2>
-          <p className="text-sm text-slate-600">Non-detects show as “&lt; limit of detection”. A void result stays listed with its reason and can be restored.</p>
+          <p className="text-sm text-slate-600">
+            Non-detects show as “&lt; limit of detection”. A void result stays listed with its reason and can be restored.
+          </p>
         </div>
         {canEdit && !group.archived && (
-          <Button variant="primary" onClick={() => setEntering(true)} disabled={workers.length === 0} title={workers.length === 0 ? 'Add members first' : undefined}>
+          <Button
+            variant="primary"
+            onClick={() => setEntering(true)}
+            disabled={workers.length === 0}
+            title={workers.length === 0 ? 'Add members first' : undefined}
+          >
             Enter a result
           </Button>
         )}

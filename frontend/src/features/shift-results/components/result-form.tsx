@@ -19,7 +19,20 @@ const numberOrNull = (value: unknown) => (value === '' || value === null || valu
 const idOrUndefined = (value: unknown) => (value === '' || value === undefined ? undefined : Number(value));
 const emptyToNull = (value: unknown) => (value === '' || value === undefined ? null : value);
 
-const formFields = ['workerId', 'date', 'value', 'unit', 'nonDetect', 'detectionLimit', 'sampleId', 'lab', 'startTime', 'endTime', 'sampledMinutes', 'notes'] as const;
+const formFields = [
+  'workerId',
+  'date',
+  'value',
+  'unit',
+  'nonDetect',
+  'detectionLimit',
+  'sampleId',
+  'lab',
+  'startTime',
+  'endTime',
+  'sampledMinutes',
+  'notes',
+] as const;
 
 /**
  * Enter one shift result by hand: worker, date, value (or a non-detect with its detection

@@ -47,7 +47,10 @@ export function ResultsTable({
   const columns = useMemo(
     () =>
       column.columns([
-        column.accessor('date', { header: 'Date', cell: (info) => <span className="whitespace-nowrap tabular-nums">{formatCalendarDate(info.getValue())}</span> }),
+        column.accessor('date', {
+          header: 'Date',
+          cell: (info) => <span className="whitespace-nowrap tabular-nums">{formatCalendarDate(info.getValue())}</span>,
+        }),
         column.accessor((result) => result.worker.code, {
           id: 'workerCode',
           header: 'Worker',
@@ -70,7 +73,11 @@ export function ResultsTable({
           ),
         }),
         column.accessor('source', { header: 'Source', cell: (info) => sourceLabels[info.getValue()] }),
-        column.display({ id: 'sample', header: 'Sample', cell: (info) => <span className="text-xs text-slate-600">{sampleText(info.row.original) || '—'}</span> }),
+        column.display({
+          id: 'sample',
+          header: 'Sample',
+          cell: (info) => <span className="text-xs text-slate-600">{sampleText(info.row.original) || '—'}</span>,
+        }),
         column.accessor('status', {
           header: 'Status',
           cell: (info) =>
@@ -121,7 +128,11 @@ export function ResultsTable({
         rowClassName={(result) => (result.status === 'void' ? 'bg-red-50/40 text-slate-500' : undefined)}
         empty={
           <EmptyState title={filtered ? 'No result matches' : 'No results yet'}>
-            {filtered ? 'Clear the search or the filters.' : canEdit ? 'Enter a result, or import a lab file.' : 'Results appear here as they are entered or imported.'}
+            {filtered
+              ? 'Clear the search or the filters.'
+              : canEdit
+                ? 'Enter a result, or import a lab file.'
+                : 'Results appear here as they are entered or imported.'}
           </EmptyState>
         }
       />

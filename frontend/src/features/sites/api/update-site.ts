@@ -13,7 +13,11 @@ export function updateSite(organizationId: string, siteId: number, changes: Site
 }
 
 export function useUpdateSite(organizationId: string) {
-  return useOrganizationMutation(organizationId, ({ siteId, changes }: { siteId: number; changes: SiteUpdate }) => updateSite(organizationId, siteId, changes), touches);
+  return useOrganizationMutation(
+    organizationId,
+    ({ siteId, changes }: { siteId: number; changes: SiteUpdate }) => updateSite(organizationId, siteId, changes),
+    touches,
+  );
 }
 
 /** POST …/sites/:siteId/archive | unarchive `{ reason? }`; 409 while a group of the site is in use. */

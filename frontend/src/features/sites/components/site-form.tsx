@@ -10,7 +10,17 @@ import type { SiteView } from '../api/get-sites';
 import { useUpdateSite } from '../api/update-site';
 
 /** Add a site, or edit one (`site` given). Checked with the server's schema; Enter in the name submits. */
-export function SiteForm({ organizationId, site, onSaved, onCancel }: { organizationId: string; site?: SiteView; onSaved: (site: SiteView) => void; onCancel: () => void }) {
+export function SiteForm({
+  organizationId,
+  site,
+  onSaved,
+  onCancel,
+}: {
+  organizationId: string;
+  site?: SiteView;
+  onSaved: (site: SiteView) => void;
+  onCancel: () => void;
+}) {
   const create = useCreateSite(organizationId);
   const update = useUpdateSite(organizationId);
   const form = useForm({ resolver: zodResolver(siteCreate), defaultValues: { name: site?.name ?? '', description: site?.description ?? '' } });

@@ -14,9 +14,6 @@ export function useCreateInvitation(organizationId: string) {
   return useMutation({
     mutationFn: (input: InvitationCreate) => createInvitation(organizationId, input),
     onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: invitationsKey(organizationId) }),
-        queryClient.invalidateQueries({ queryKey: ['outbox'] }),
-      ]),
+      Promise.all([queryClient.invalidateQueries({ queryKey: invitationsKey(organizationId) }), queryClient.invalidateQueries({ queryKey: ['outbox'] })]),
   });
 }

@@ -15,8 +15,7 @@ export function updateMember(organizationId: string, membershipId: Member['id'],
 export function useUpdateMember(organizationId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ membershipId, input }: { membershipId: Member['id']; input: MembershipUpdate }) =>
-      updateMember(organizationId, membershipId, input),
+    mutationFn: ({ membershipId, input }: { membershipId: Member['id']; input: MembershipUpdate }) => updateMember(organizationId, membershipId, input),
     onSuccess: () =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: membersKey(organizationId) }),

@@ -177,8 +177,7 @@ export function MembersTable({ organizationId, members, currentUserId }: { organ
       currentUserId,
       pendingMemberId: update.isPending ? (update.variables?.membershipId ?? null) : null,
       changeRole: (member, role) => run(member, { role }, `${member.name || member.email} is now ${roleLabels[role]}.`),
-      setActive: (member, active) =>
-        run(member, { active }, `${member.name || member.email} is ${active ? 'active again' : 'deactivated'}.`),
+      setActive: (member, active) => run(member, { active }, `${member.name || member.email} is ${active ? 'active again' : 'deactivated'}.`),
     },
   });
 

@@ -11,9 +11,7 @@ import { useRevokeInvitation } from '../api/revoke-invitation';
 export function PendingInvitations({ organizationId, invitations }: { organizationId: string; invitations: Invitation[] }) {
   const revoke = useRevokeInvitation(organizationId);
   const [outcome, setOutcome] = useState<{ tone: 'success' | 'error'; text: string } | null>(null);
-  const pending = invitations
-    .filter((invitation) => invitation.status !== 'accepted')
-    .sort((a, b) => String(b.createdAt).localeCompare(String(a.createdAt)));
+  const pending = invitations.filter((invitation) => invitation.status !== 'accepted').sort((a, b) => String(b.createdAt).localeCompare(String(a.createdAt)));
 
   return (
     <div className="space-y-2">
@@ -47,7 +45,9 @@ export function PendingInvitations({ organizationId, invitations }: { organizati
                     <td className="text-slate-600 tabular-nums">{formatDate(invitation.createdAt)}</td>
                     <td className="tabular-nums">
                       {expired ? (
-                        <span className="rounded bg-slate-100 px-1.5 py-0.5 text-xs font-medium text-slate-600">Expired {formatDate(invitation.expiresAt)}</span>
+                        <span className="rounded bg-slate-100 px-1.5 py-0.5 text-xs font-medium text-slate-600">
+                          Expired {formatDate(invitation.expiresAt)}
+                        </span>
                       ) : (
                         <span className="text-slate-600">{formatDate(invitation.expiresAt)}</span>
                       )}
@@ -61,7 +61,8 @@ export function PendingInvitations({ organizationId, invitations }: { organizati
                         onClick={() => {
                           setOutcome(null);
                           revoke.mutate(invitation.id, {
-                            onSuccess: () => setOutcome({ tone: 'success', text: `The invitation for ${invitation.email} is revoked; its link no longer works.` }),
+                            onSuccess: () =>
+                              setOutcome({ tone: 'success', text: `The invitation for ${invitation.email} is revoked; its link no longer works.` }),
                             onError: (error) => setOutcome({ tone: 'error', text: error.message }),
                           });
                         }}

@@ -13,7 +13,10 @@ export function getWorker(organizationId: string, workerId: string, signal?: Abo
 }
 
 export function workerQuery(organizationId: string, workerId: string) {
-  return queryOptions({ queryKey: [...orgKeys.workers(organizationId), 'one', workerId] as const, queryFn: ({ signal }) => getWorker(organizationId, workerId, signal) });
+  return queryOptions({
+    queryKey: [...orgKeys.workers(organizationId), 'one', workerId] as const,
+    queryFn: ({ signal }) => getWorker(organizationId, workerId, signal),
+  });
 }
 
 export function useWorker(organizationId: string, workerId: string) {

@@ -6,9 +6,9 @@ import { orgKeys } from '@frontend/lib/query-keys';
 
 /**
  * A worker as the API sends it. For roles without 'workerNames:read' (consultants) the `name`
- * key is absent and `nameHidden` is true: the server never sends the name.
+ * and `email` keys are absent and `nameHidden` is true: the server never sends them.
  */
-export type WorkerPublic = Omit<Worker, 'name' | 'organizationId'> & { name?: string | null; nameHidden?: true };
+export type WorkerPublic = Omit<Worker, 'name' | 'email' | 'organizationId'> & { name?: string | null; email?: string | null; nameHidden?: true };
 export type WorkerListItem = WorkerPublic & { currentGroups: Array<{ id: number; name: string }> };
 
 /** GET /api/orgs/:orgId/workers?q&sort&page&pageSize&archived&groupId&memberOn&jobTitle (org:read). */

@@ -56,8 +56,17 @@ export function GroupMembers({
           ),
         }),
         ...(canSeeNames ? [column.display({ id: 'name', header: 'Name', cell: (info) => <WorkerName worker={info.row.original.worker} /> })] : []),
-        column.accessor((member) => member.worker.jobTitle, { id: 'jobTitle', header: 'Job title', sortFn: 'alphanumeric', cell: (info) => info.getValue() || '—' }),
-        column.accessor('fromDate', { header: 'From', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatCalendarDate(info.getValue())}</span> }),
+        column.accessor((member) => member.worker.jobTitle, {
+          id: 'jobTitle',
+          header: 'Job title',
+          sortFn: 'alphanumeric',
+          cell: (info) => info.getValue() || '—',
+        }),
+        column.accessor('fromDate', {
+          header: 'From',
+          sortFn: 'alphanumeric',
+          cell: (info) => <span className="tabular-nums">{formatCalendarDate(info.getValue())}</span>,
+        }),
         column.accessor((member) => member.toDate ?? '9999-12-31', {
           id: 'toDate',
           header: 'To',
@@ -71,7 +80,12 @@ export function GroupMembers({
                 id: 'actions',
                 header: () => <span className="sr-only">Actions</span>,
                 cell: (info) => (
-                  <MembershipActions organizationId={organizationId} period={info.row.original} who={`${info.row.original.worker.code} in ${group.name}`} onDone={setOutcome} />
+                  <MembershipActions
+                    organizationId={organizationId}
+                    period={info.row.original}
+                    who={`${info.row.original.worker.code} in ${group.name}`}
+                    onDone={setOutcome}
+                  />
                 ),
               }),
             ]
@@ -104,7 +118,11 @@ export function GroupMembers({
         table={table}
         caption={`Members of ${group.name} over time`}
         rowClassName={(member) => (member.current ? undefined : 'text-slate-500')}
-        empty={<EmptyState title="No members yet">{canEdit ? 'Add the workers of this group with “Add member”.' : 'A hygienist adds the group’s workers.'}</EmptyState>}
+        empty={
+          <EmptyState title="No members yet">
+            {canEdit ? 'Add the workers of this group with “Add member”.' : 'A hygienist adds the group’s workers.'}
+          </EmptyState>
+        }
       />
       {members.length > 25 && <TablePager table={table} noun="periods" />}
       <Dialog open={adding} onClose={() => setAdding(false)} title="Add a member" description={`To ${group.name}, from a date.`}>

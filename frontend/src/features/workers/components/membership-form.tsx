@@ -62,7 +62,13 @@ export function MembershipForm({
       />
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField label="From" type="date" hint="First day in the group." error={errors.fromDate?.message} {...form.register('fromDate')} />
-        <TextField label="To (optional)" type="date" hint="Last day; leave empty while still a member." error={errors.toDate?.message} {...form.register('toDate', { setValueAs: emptyToNull })} />
+        <TextField
+          label="To (optional)"
+          type="date"
+          hint="Last day; leave empty while still a member."
+          error={errors.toDate?.message}
+          {...form.register('toDate', { setValueAs: emptyToNull })}
+        />
       </div>
       <FormActions error={formError} submitLabel="Add membership" pending={isSubmitting} onCancel={onCancel} />
     </form>

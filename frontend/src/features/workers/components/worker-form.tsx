@@ -12,8 +12,9 @@ import type { WorkerPublic } from '../api/get-workers';
 import { useUpdateWorker } from '../api/update-worker';
 
 /**
- * Add or edit a worker: the code results refer to, an optional name, the job title. Roles that
- * may not see names (consultants) never get this form; the name field is left out for them too.
+ * Add or edit a worker: the code results refer to, an optional name, the job title and an optional
+ * e-mail address for worker letters. Roles that may not see names (consultants) never get this
+ * form; the name and e-mail fields are left out for them too.
  */
 export function WorkerForm({
   organizationId,
@@ -32,7 +33,7 @@ export function WorkerForm({
   const update = useUpdateWorker(organizationId);
   const form = useForm<z.input<typeof workerCreate>, unknown, WorkerCreate>({
     resolver: zodResolver(workerCreate),
-    defaultValues: { code: worker?.code ?? '', name: worker?.name ?? '', jobTitle: worker?.jobTitle ?? '' },
+    defaultValues: { code: worker?.code ?? '', name: worker?.name ?? '', jobTitle: worker?.jobTitle ?? '', email: worker?.email ?? '' },
   });
   const [formError, setFormError] = useState<string | null>(null);
   const { errors, isSubmitting } = form.formState;
@@ -42,12 +43,12 @@ export function WorkerForm({
     try {
       onSaved(
         worker
-          ? // Without the name field, leave the stored name as it is.
+          ? // Without the name and e-mail fields, leave the stored ones as they are.
             await update.mutateAsync({ workerId: worker.id, changes: canSeeNames ? values : { code: values.code, jobTitle: values.jobTitle } })
-          : await create.mutateAsync(canSeeNames ? values : { ...values, name: null }),
+          : await create.mutateAsync(canSeeNames ? values : { ...values, name: null, email: null }),
       );
     } catch (error) {
-      setFormError(applyServerErrorsInline(error, form.setError, ['code', 'name', 'jobTitle']));
+      setFormError(applyServerErrorsInline(error, form.setError, ['code', 'name', 'jobTitle', 'email']));
     }
   });
 
@@ -70,6 +71,16 @@ export function WorkerForm({
         />
       )}
       <TextField label="Job title" autoComplete="off" error={errors.jobTitle?.message} {...form.register('jobTitle')} />
+      {canSeeNames && (
+        <TextField
+          label="E-mail address (optional)"
+          type="email"
+          autoComplete="off"
+          hint="Where letters about the worker's results are e-mailed. Personal data, like the name."
+          error={errors.email?.message}
+          {...form.register('email')}
+        />
+      )}
       <FormActions error={formError} submitLabel={worker ? 'Save worker' : 'Add worker'} pending={isSubmitting} onCancel={onCancel} />
     </form>
   );

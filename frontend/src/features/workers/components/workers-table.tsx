@@ -2,10 +2,8 @@ import { createColumnHelper } from '@tanstack/react-table';
 import { useMemo } from 'react';
 import { Link } from 'react-router';
 import type { ListPage } from '@schema/list-query';
-import { DataTable, TablePager, useServerListTable, type ListTableFeatures } from '@frontend/components/data-table';
-import { RecordActions } from '@frontend/components/record-actions';
-import { EmptyState } from '@frontend/components/states';
-import { ArchivedBadge } from '@frontend/components/status-badge';
+import { ArchivableListTable, type ArchivableRecordKind } from '@frontend/components/archivable-list-table';
+import type { ListTableFeatures } from '@frontend/components/data-table';
 import type { ListParams } from '@frontend/lib/list-params';
 import type { WorkerListItem } from '../api/get-workers';
 import { useArchiveWorker } from '../api/update-worker';
@@ -16,13 +14,8 @@ const column = createColumnHelper<ListTableFeatures, WorkerListItem>();
 /** Workers by code; names only for roles that may see them (the column is left out otherwise). */
 export function WorkersTable({
   organizationId,
-  page,
-  params,
-  busy,
-  canEdit,
   canSeeNames,
-  onEdit,
-  onOutcome,
+  ...props
 }: {
   organizationId: string;
   page: ListPage<WorkerListItem>;
@@ -33,7 +26,7 @@ export function WorkersTable({
   onOutcome: (message: string) => void;
   onEdit: (worker: WorkerListItem) => void;
 }) {
-  const archive = useArchiveWorker(organizationId);
+  const { mutateAsync } = useArchiveWorker(organizationId);
   const base = `/orgs/${encodeURIComponent(organizationId)}`;
   const columns = useMemo(
     () =>
@@ -46,7 +39,9 @@ export function WorkersTable({
             </Link>
           ),
         }),
-        ...(canSeeNames ? [column.display({ id: 'name', header: 'Name', enableSorting: true, cell: (info) => <WorkerName worker={info.row.original} /> })] : []),
+        ...(canSeeNames
+          ? [column.display({ id: 'name', header: 'Name', enableSorting: true, cell: (info) => <WorkerName worker={info.row.original} /> })]
+          : []),
         column.accessor('jobTitle', { header: 'Job title', cell: (info) => <span className="text-slate-700">{info.getValue() || '—'}</span> }),
         column.accessor('currentGroups', {
           header: 'Groups today',
@@ -64,48 +59,20 @@ export function WorkersTable({
               </ul>
             ),
         }),
-        column.accessor('archived', { header: 'Status', enableSorting: false, cell: (info) => <ArchivedBadge archived={info.getValue()} /> }),
-        ...(canEdit
-          ? [
-              column.display({
-                id: 'actions',
-                header: () => <span className="sr-only">Actions</span>,
-                cell: (info) => {
-                  const worker = info.row.original;
-                  return (
-                    <RecordActions
-                      name={worker.code}
-                      what="worker"
-                      archived={worker.archived}
-                      consequence="The worker is left out of new sampling plan draws and pick lists; memberships and results stay."
-                      onDone={onOutcome}
-                      onEdit={() => onEdit(worker)}
-                      onArchive={(archived, reason) => archive.mutateAsync({ workerId: worker.id, archived, reason })}
-                    />
-                  );
-                },
-              }),
-            ]
-          : []),
       ]),
-    [base, canEdit, canSeeNames, onEdit, onOutcome, archive.mutateAsync],
+    [base, canSeeNames],
   );
-  const table = useServerListTable({ columns, page, params, getRowId: (worker) => String(worker.id) });
-  const filtered = Boolean(params.q || params.filter('archived') || params.filter('groupId'));
-  return (
-    <div className="space-y-3">
-      <DataTable
-        table={table}
-        caption="Workers"
-        busy={busy}
-        rowClassName={(worker) => (worker.archived ? 'bg-slate-50/60 text-slate-500' : undefined)}
-        empty={
-          <EmptyState title={filtered ? 'No worker matches' : 'No workers yet'}>
-            {filtered ? 'Clear the search or the filters.' : canEdit ? 'Add workers with “Add worker”, then put them in groups.' : 'A hygienist adds workers here.'}
-          </EmptyState>
-        }
-      />
-      <TablePager table={table} noun="workers" />
-    </div>
+  const kind = useMemo<ArchivableRecordKind<WorkerListItem>>(
+    () => ({
+      what: 'worker',
+      plural: 'workers',
+      consequence: 'The worker is left out of new sampling plan draws and pick lists; memberships and results stay.',
+      nameOf: (worker) => worker.code,
+      archive: (worker, archived, reason) => mutateAsync({ workerId: worker.id, archived, reason }),
+      addHint: 'Add workers with “Add worker”, then put them in groups.',
+      readerHint: 'A hygienist adds workers here.',
+    }),
+    [mutateAsync],
   );
+  return <ArchivableListTable kind={kind} columns={columns} caption="Workers" filterKeys={['archived', 'groupId']} {...props} />;
 }

@@ -1,0 +1,78 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { MixtureCreate } from '@schema/mixtures';
+import { api, apiPath } from '@frontend/lib/api-client';
+import { useOrganizationMutation } from '@frontend/lib/org-mutation';
+import { orgKeys } from '@frontend/lib/query-keys';
+
+/* Mixtures of agents with similar effects, and the mixture index results of a mixture group. */
+
+export interface MixtureView {
+  id: number;
+  name: string;
+  notes: string;
+  archived: boolean;
+  components: Array<{ id: number; name: string; archived: boolean }>;
+  groupCount: number;
+  validResultCount: number;
+}
+
+export interface MixturePlan {
+  group: { id: number; name: string };
+  mixture: { id: number; name: string; components: string[] };
+  formula: string;
+  source: string;
+  nonDetectRule: string;
+  rows: Array<{
+    workerId: number;
+    workerCode: string;
+    date: string;
+    index: number;
+    nonDetect: boolean;
+    lowerBound: number;
+    statement: string;
+    flags: string[];
+  }>;
+  skipped: Array<{ workerCode: string; date: string; reason: string; missing: string[] }>;
+  replaces: Array<{ id: number; workerCode: string; date: string; value: number }>;
+}
+
+const mixtureKeys = (organizationId: string) => [...orgKeys.all(organizationId), 'mixtures'] as const;
+const base = (organizationId: string) => apiPath('/api/orgs', organizationId);
+
+/** GET /api/orgs/:orgId/mixtures (org:read). */
+export function useMixtures(organizationId: string) {
+  return useQuery(
+    queryOptions({
+      queryKey: mixtureKeys(organizationId),
+      queryFn: ({ signal }) => api.get<MixtureView[]>(`${base(organizationId)}/mixtures`, { signal }),
+    }),
+  );
+}
+
+/** POST /api/orgs/:orgId/mixtures → 201 (data:edit); also refreshes the agents (a mixture is an agent). */
+export function useCreateMixture(organizationId: string) {
+  return useOrganizationMutation(organizationId, (mixture: MixtureCreate) => api.post<MixtureView>(`${base(organizationId)}/mixtures`, mixture), [
+    mixtureKeys,
+    orgKeys.agents,
+  ]);
+}
+
+/** GET …/exposure-groups/:groupId/mixture-preview (org:read): what computing would write, skip and replace. */
+export function useMixturePreview(organizationId: string, groupId: number) {
+  return useQuery(
+    queryOptions({
+      queryKey: [...mixtureKeys(organizationId), 'preview', groupId] as const,
+      queryFn: ({ signal }) => api.get<MixturePlan>(`${base(organizationId)}/exposure-groups/${groupId}/mixture-preview`, { signal }),
+      retry: false,
+    }),
+  );
+}
+
+/** POST …/exposure-groups/:groupId/mixture-results (data:edit): writes the results in one transaction. */
+export function useComputeMixtureResults(organizationId: string, groupId: number) {
+  return useOrganizationMutation(
+    organizationId,
+    () => api.post<MixturePlan & { written: number; voided: number }>(`${base(organizationId)}/exposure-groups/${groupId}/mixture-results`, {}),
+    [mixtureKeys, orgKeys.shiftResults, orgKeys.exposureGroups, orgKeys.summary],
+  );
+}

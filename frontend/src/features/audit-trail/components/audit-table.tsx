@@ -39,7 +39,11 @@ const columns = column.columns([
     enableSorting: false,
     cell: (info) => <ChangeSummary before={info.row.original.before} after={info.row.original.after} />,
   }),
-  column.accessor('reason', { header: 'Why', enableSorting: false, cell: (info) => <span className="max-w-xs break-words">{info.getValue() || '—'}</span> }),
+  column.accessor('reason', {
+    header: 'Why',
+    enableSorting: false,
+    cell: (info) => <span className="block max-w-xs min-w-48 break-words">{info.getValue() || '—'}</span>,
+  }),
 ]);
 
 /** The audit events of one page (paged on the server), newest first. */

@@ -26,7 +26,7 @@ export function ChangeSummary({ before, after }: { before: Record<string, unknow
   return (
     <ul className="max-w-md space-y-0.5 text-xs">
       {lines.map((line) => (
-        <li key={line.field} className="break-words">
+        <li key={line.field} className="break-all">
           <span className="font-medium text-slate-800">{line.field}</span>:{' '}
           {line.before !== undefined && (
             <>

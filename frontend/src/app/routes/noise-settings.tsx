@@ -1,17 +1,13 @@
-import { useState, type FormEvent } from 'react';
 import { noiseSettingsUpdate, type NoiseSettingsValues } from '@schema/noise-logs';
 import { can } from '@schema/permissions';
-import { Button } from '@frontend/components/button';
 import { DocumentTitle } from '@frontend/components/document-title';
-import { TextField } from '@frontend/components/form-field';
-import { Notice } from '@frontend/components/notice';
+import { NumberSettingsForm, type NumberSettingField } from '@frontend/components/number-settings-form';
 import { PageHeader } from '@frontend/components/page-header';
 import { QueryState } from '@frontend/components/query-state';
 import { useNoiseSettings, useUpdateNoiseSettings } from '@frontend/features/noise-logs/api/noise-settings';
-import { isApiError } from '@frontend/lib/api-client';
 import { useMembership } from '../use-membership';
 
-const fields: Array<{ key: keyof NoiseSettingsValues; label: string; hint: string }> = [
+const fields: Array<NumberSettingField<keyof NoiseSettingsValues>> = [
   { key: 'stillMinutes', label: 'Still stretch, minutes', hint: 'A run of intervals without motion at least this long is a still stretch (default 15).' },
   {
     key: 'motionChangeMg',
@@ -56,53 +52,20 @@ export function Component() {
 
 function SettingsForm({ values, organizationId, canManage }: { values: NoiseSettingsValues; organizationId: string; canManage: boolean }) {
   const update = useUpdateNoiseSettings(organizationId);
-  const [draft, setDraft] = useState<Record<string, string>>(() => Object.fromEntries(Object.entries(values).map(([key, value]) => [key, String(value)])));
-  const [problems, setProblems] = useState<Record<string, string>>({});
-  const [saved, setSaved] = useState(false);
-
-  async function submit(event: FormEvent) {
-    event.preventDefault();
-    setSaved(false);
-    const parsed = noiseSettingsUpdate.safeParse(
-      Object.fromEntries(Object.entries(draft).map(([key, value]) => [key, value.trim() === '' ? undefined : Number(value)])),
-    );
-    if (!parsed.success) {
-      setProblems(Object.fromEntries(parsed.error.issues.map((issue) => [String(issue.path[0]), issue.message])));
-      return;
-    }
-    setProblems({});
-    try {
-      await update.mutateAsync(parsed.data);
-      setSaved(true);
-    } catch (failure) {
-      if (isApiError(failure) && failure.fields) setProblems(failure.fields);
-    }
-  }
-
   return (
-    <form onSubmit={submit} className="max-w-2xl space-y-4" noValidate>
-      {saved && <Notice tone="success">Saved. Logs uploaded from now on use these settings.</Notice>}
-      {update.error && <Notice tone="error">{isApiError(update.error) ? update.error.message : 'The settings could not be saved.'}</Notice>}
-      {!canManage && <Notice tone="info">Only an admin can change these settings.</Notice>}
-      <div className="grid gap-3 sm:grid-cols-2">
-        {fields.map((field) => (
-          <TextField
-            key={field.key}
-            label={field.label}
-            hint={field.hint}
-            inputMode="decimal"
-            value={draft[field.key] ?? ''}
-            disabled={!canManage}
-            onChange={(event) => setDraft({ ...draft, [field.key]: event.target.value })}
-            error={problems[field.key]}
-          />
-        ))}
-      </div>
-      {canManage && (
-        <Button type="submit" variant="primary" pending={update.isPending}>
-          Save settings
-        </Button>
-      )}
-    </form>
+    <NumberSettingsForm
+      fields={fields}
+      values={values}
+      schema={noiseSettingsUpdate}
+      save={update.mutateAsync}
+      pending={update.isPending}
+      saveError={update.error}
+      canManage={canManage}
+      savedMessage="Saved. Logs uploaded from now on use these settings."
+      readOnlyMessage="Only an admin can change these settings."
+      submitLabel="Save settings"
+      className="max-w-2xl space-y-4"
+      gridClassName="grid gap-3 sm:grid-cols-2"
+    />
   );
 }

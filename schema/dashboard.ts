@@ -27,12 +27,6 @@ export interface DashboardGroup {
   plan: { id: number; targetCount: number; done: number } | null;
 }
 
-export interface GroupReference {
-  id: number;
-  name: string;
-  outOfDate: boolean;
-}
-
 export interface DashboardCounts {
   groups: number;
   decided: number;
@@ -45,17 +39,20 @@ export interface OrganizationDashboard {
   organization: { id: number; name: string };
   /** The server's date (UTC) the review windows are counted from. */
   today: string;
-  /** One row per site; `cells[c]` lists the groups in category c. */
+  /**
+   * One row per site; `cells[c]` holds the ids of the groups in category c. Every list below holds group
+   * ids that refer to `groups` (each group is sent once: a large organization's answer stays small).
+   */
   matrix: Array<{
     siteId: number;
     siteName: string;
-    cells: [GroupReference[], GroupReference[], GroupReference[], GroupReference[], GroupReference[]];
-    undecided: GroupReference[];
+    cells: [number[], number[], number[], number[], number[]];
+    undecided: number[];
   }>;
   groups: DashboardGroup[];
-  unacceptable: DashboardGroup[];
-  uncertain: DashboardGroup[];
-  reviews: { overdue: DashboardGroup[]; within30: DashboardGroup[]; within90: DashboardGroup[] };
+  unacceptable: number[];
+  uncertain: number[];
+  reviews: { overdue: number[]; within30: number[]; within90: number[] };
   recentDecisions: DecisionRecordSummary[];
   counts: DashboardCounts;
 }

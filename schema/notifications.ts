@@ -35,7 +35,8 @@ export const notificationTypeInfo: Record<NotificationType, { label: string; des
   },
   reviewDue: {
     label: 'Review date within 30 days',
-    description: 'Once per approved record whose review date is 30 days away or less: to managers and hygienists.',
+    description:
+      'Once per approved record whose review date is 30 days away or less (several in one e-mail when they fall due together): to managers and hygienists.',
   },
 };
 

@@ -52,8 +52,8 @@ describe('notification e-mails', () => {
   const mailTo = (who: SignedIn, subjectPart: string) => context.mailbox.waitFor((mail) => mail.to === who.user.email && mail.subject.includes(subjectPart));
   const mailsWith = (subjectPart: string): CapturedMessage[] => context.mailbox.list().filter((mail) => mail.subject.includes(subjectPart));
 
-  async function draft(body: object): Promise<DecisionRecordView> {
-    const answer = await hygienist.post(groupUrl(), { rationale: 'Ten full-shift samples over the autumn campaign.', reviewDate: '2025-03-20', ...body });
+  async function draft(body: object, url = groupUrl()): Promise<DecisionRecordView> {
+    const answer = await hygienist.post(url, { rationale: 'Ten full-shift samples over the autumn campaign.', reviewDate: '2025-03-20', ...body });
     expect(answer.status, JSON.stringify(answer.body)).toBe(201);
     return answer.body as DecisionRecordView;
   }
@@ -301,5 +301,65 @@ describe('notification e-mails', () => {
     } finally {
       vi.useRealTimers();
     }
+  });
+  it('a run with several newly due records sends each person one digest per organization, and each record stays reminded once', async () => {
+    // Two more groups get approved records due on 2025-03-25 and 2025-04-01; the wood-dust record (2025-03-20) was reminded already.
+    const newlyDue = [];
+    for (const [name, reviewDate] of [
+      ['Edger operator – noise', '2025-03-25'],
+      ['Saw filer – noise', '2025-04-01'],
+    ] as const) {
+      const group = groupId(context.db, ridgeback, name);
+      const record = await draft({ category: 2, reviewDate }, `/api/orgs/${ridgeback}/exposure-groups/${group}/decision-records`);
+      await approve(record.id);
+      newlyDue.push({ name, id: record.id, reviewDate });
+    }
+    const jobDeps: NotifierDeps = {
+      db: context.db,
+      mailer: ownMailer,
+      clock: createFakeClock('2025-03-10T06:00:00.000Z'),
+      logger: silentLogger,
+      config: context.config,
+    };
+    const before = ownCapture.outbox.list().length;
+    const reviewRows = () => context.db.$client.prepare(`SELECT COUNT(*) FROM notifications WHERE type = 'reviewDue'`).pluck().get() as number;
+    const rowsBefore = reviewRows();
+    const counts = await runReviewReminders(jobDeps);
+    expect(counts).toMatchObject({ records: 3, failed: 0, duplicates: 2 });
+    // The outbox lists newest first.
+    const sent = ownCapture.outbox.list().slice(0, ownCapture.outbox.list().length - before);
+    expect(sent).toHaveLength(counts.sent);
+    const toRidgeback = sent.filter((mail) => mail.subject.includes('Ridgeback Timber Co.'));
+    expect(toRidgeback.map((mail) => mail.to).sort()).toEqual([hygienist.user.email, manager.user.email].sort());
+    for (const message of toRidgeback) {
+      expect(message.subject).toBe('Reviews due: 2 exposure groups in Ridgeback Timber Co.');
+      expect(message.text).toContain(`Edger operator – noise (decision record ${newlyDue[0]!.id}): review in 15 days, on 2025-03-25.`);
+      expect(message.text).toContain(`Saw filer – noise (decision record ${newlyDue[1]!.id}): review in 22 days, on 2025-04-01.`);
+      expect(message.text).not.toContain(woodDustName);
+      expect(message.text).toContain(cautionLine);
+      expect(message.html).toContain(`/orgs/${ridgeback}"`);
+    }
+    // One row per record and person, all carrying the digest's subject and sending time.
+    for (const record of newlyDue) {
+      expect(
+        rowsFor('reviewDue', record.id)
+          .map((row) => [row.recipientEmail, row.subject, row.sentAt])
+          .sort(),
+      ).toEqual(
+        [hygienist.user.email, manager.user.email]
+          .sort()
+          .map((email) => [email, 'Reviews due: 2 exposure groups in Ridgeback Timber Co.', '2025-03-10T06:00:00.000Z']),
+      );
+    }
+    // Again the same day: nothing new for anybody.
+    const claimedFirst = reviewRows() - rowsBefore;
+    expect(await runReviewReminders(jobDeps)).toEqual({
+      records: counts.records,
+      sent: 0,
+      failed: 0,
+      switchedOff: 0,
+      duplicates: counts.duplicates + claimedFirst,
+    });
+    expect(ownCapture.outbox.list().length).toBe(before + sent.length);
   });
 });

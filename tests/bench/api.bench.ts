@@ -171,7 +171,7 @@ export const run: BenchModule['run'] = async () => {
     server = started.child;
     const { url } = started;
     // Wait until the server is quiet (under 5 % of a core for a second): at start it runs the daily review
-    // reminders (jobs/review-reminders.ts), which for this organization sends e-mails for hundreds of records.
+    // reminders (jobs/review-reminders.ts): one digest e-mail per manager and hygienist for this organization.
     const quietStart = performance.now();
     for (let previous = processCpuMs(server.pid!); performance.now() - quietStart < 180_000;) {
       await new Promise((wait) => setTimeout(wait, 1000));

@@ -71,6 +71,10 @@ describe('decision records and the dashboard', () => {
     const sawmill = managerMatrix.getByRole('row').filter({ hasText: 'Ridgeback sawmill' });
     const cell = sawmill.getByRole('cell').nth(Number(chosenCategory));
     await cell.getByRole('link', { name: group }).waitFor();
+    // The attention lists arrive as group ids and are shown with the group's name and site (demo: the edger group is unacceptable).
+    const unacceptable = manager.page.getByRole('region', { name: /^Unacceptable groups/ });
+    await unacceptable.getByRole('link', { name: 'Edger operator – noise' }).waitFor();
+    await expect.poll(() => unacceptable.getByRole('listitem').filter({ hasText: 'Edger operator – noise' }).textContent()).toContain('Ridgeback sawmill');
     await screenshot(manager.page, 'dashboard-manager');
 
     const scan = await axeScan(manager.page);

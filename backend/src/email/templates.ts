@@ -190,26 +190,60 @@ export function categoryChangedEmail(
   );
 }
 
-/** An approved record's review date is 30 days away or less (or has passed). */
-export function reviewDueEmail(
-  input: NotificationEnvelope & { groupName: string; recordId: number; reviewDate: string; daysLeft: number; categoryText: string },
-): MailMessage {
-  const when =
-    input.daysLeft > 1
-      ? `in ${input.daysLeft} days, on ${input.reviewDate}`
-      : input.daysLeft === 1
-        ? `tomorrow, ${input.reviewDate}`
-        : input.daysLeft === 0
-          ? `today, ${input.reviewDate}`
-          : `on ${input.reviewDate}, ${-input.daysLeft} days ago`;
+/** "in 17 days, on 2025-03-20", "tomorrow, …", "today, …" or "on …, 3 days ago". */
+function reviewWhen(daysLeft: number, reviewDate: string): string {
+  if (daysLeft > 1) return `in ${daysLeft} days, on ${reviewDate}`;
+  if (daysLeft === 1) return `tomorrow, ${reviewDate}`;
+  if (daysLeft === 0) return `today, ${reviewDate}`;
+  return `on ${reviewDate}, ${-daysLeft} days ago`;
+}
+
+/** One review falling due, as the reminder e-mails list it. */
+export interface ReviewDueItem {
+  groupName: string;
+  recordId: number;
+  reviewDate: string;
+  daysLeft: number;
+  categoryText: string;
+}
+
+/** An approved record's review date is 30 days away or less (or has passed): to managers and hygienists. */
+export function reviewDueEmail(input: NotificationEnvelope & ReviewDueItem): MailMessage {
   return notificationMessage(
     input,
     `Review due ${input.daysLeft >= 0 ? `by ${input.reviewDate}` : `since ${input.reviewDate}`}: ${input.groupName}`,
     [
-      `The approved decision record ${input.recordId} for the exposure group "${input.groupName}" in ${input.organizationName} is due for review ${when}.`,
+      `The approved decision record ${input.recordId} for the exposure group "${input.groupName}" in ${input.organizationName} is due for review ${reviewWhen(input.daysLeft, input.reviewDate)}.`,
       `${input.categoryText} Plan the sampling for a new assessment and draft a new record when the results are in.`,
     ],
     'Open the decision record',
+    true,
+  );
+}
+
+/** How many records a digest names one by one; the rest are counted and found on the dashboard. */
+export const reviewDigestListLimit = 50;
+
+/**
+ * Several reviews falling due in one organization on one day: one e-mail listing them (earliest
+ * first), so a person is not sent one message per record. Links to the organization's dashboard,
+ * whose review lists show every date.
+ */
+export function reviewDueDigestEmail(input: NotificationEnvelope & { items: readonly ReviewDueItem[] }): MailMessage {
+  const overdue = input.items.filter((item) => item.daysLeft < 0).length;
+  const shown = input.items.slice(0, reviewDigestListLimit);
+  const lines = shown.map((item) => `• ${item.groupName} (decision record ${item.recordId}): review ${reviewWhen(item.daysLeft, item.reviewDate)}.`);
+  const more = input.items.length - shown.length;
+  return notificationMessage(
+    input,
+    `Reviews due: ${input.items.length} exposure groups in ${input.organizationName}${overdue > 0 ? ` (${overdue} overdue)` : ''}`,
+    [
+      `The approved decision records of ${input.items.length} exposure groups in ${input.organizationName} are due for review within 30 days${overdue > 0 ? `, ${overdue} of them already past their date` : ''}:`,
+      ...lines,
+      ...(more > 0 ? [`…and ${more} more, listed under Review dates on the organization’s dashboard.`] : []),
+      'Plan the sampling for a new assessment of each group and draft a new record when the results are in.',
+    ],
+    'Open the dashboard',
     true,
   );
 }

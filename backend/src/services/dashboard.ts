@@ -94,22 +94,22 @@ export function organizationDashboard(db: Db, clock: Clock, organizationId: numb
       site = { siteId: group.siteId, siteName: group.siteName, cells: [[], [], [], [], []], undecided: [] };
       sites.set(group.siteId, site);
     }
-    const reference = { id: group.id, name: group.name, outOfDate: group.outOfDate };
-    if (group.category === null) site.undecided.push(reference);
-    else site.cells[group.category].push(reference);
+    if (group.category === null) site.undecided.push(group.id);
+    else site.cells[group.category].push(group.id);
   }
   const decided = groups.filter((group) => group.reviewDate !== null);
+  const ids = (list: DashboardGroup[]) => list.map((group) => group.id);
   return {
     organization,
     today: date,
     matrix: [...sites.values()],
     groups,
-    unacceptable: groups.filter((group) => group.judgement === 'unacceptable'),
-    uncertain: groups.filter((group) => group.judgement === 'uncertain'),
+    unacceptable: ids(groups.filter((group) => group.judgement === 'unacceptable')),
+    uncertain: ids(groups.filter((group) => group.judgement === 'uncertain')),
     reviews: {
-      overdue: decided.filter((group) => group.reviewDate! < date),
-      within30: decided.filter((group) => group.reviewDate! >= date && group.reviewDate! <= in30),
-      within90: decided.filter((group) => group.reviewDate! > in30 && group.reviewDate! <= in90),
+      overdue: ids(decided.filter((group) => group.reviewDate! < date)),
+      within30: ids(decided.filter((group) => group.reviewDate! >= date && group.reviewDate! <= in30)),
+      within90: ids(decided.filter((group) => group.reviewDate! > in30 && group.reviewDate! <= in90)),
     },
     recentDecisions: decisionSummaries(db, organizationId, { limit: 10 }),
     counts: {
@@ -132,13 +132,17 @@ export function myOverview(db: Db, clock: Clock, userId: number): { organization
   const list = rows.map((row) => {
     const dashboard = organizationDashboard(db, clock, row.organizationId);
     const categories = [0, 0, 0, 0, 0] as [number, number, number, number, number];
+    const byId = new Map(dashboard.groups.map((group) => [group.id, group]));
     for (const group of dashboard.groups) if (group.category !== null) categories[group.category] += 1;
     return {
       organization: dashboard.organization,
       role: row.role,
       counts: dashboard.counts,
       categories,
-      unacceptable: dashboard.unacceptable.map(({ id, name, siteName }) => ({ id, name, siteName })),
+      unacceptable: dashboard.unacceptable.map((id) => {
+        const { name, siteName } = byId.get(id)!;
+        return { id, name, siteName };
+      }),
       uncertain: dashboard.uncertain.length,
       reviewsOverdue: dashboard.reviews.overdue.length,
       reviewsWithin90: dashboard.reviews.within30.length + dashboard.reviews.within90.length,

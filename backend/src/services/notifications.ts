@@ -22,7 +22,9 @@ import {
   categoryChangedEmail,
   decisionApprovedEmail,
   decisionReturnedEmail,
+  reviewDueDigestEmail,
   reviewDueEmail,
+  type ReviewDueItem,
   stillStretchEmail,
   type NotificationEnvelope,
 } from '../email/templates';
@@ -194,7 +196,7 @@ function errorText(error: unknown): string {
  * Claims the dedupe key: true when this call should send. A key already sent, or being sent, is
  * a duplicate; a key whose last attempt failed is tried again (that is what a retry is for).
  */
-function claim(db: Db, planned: PlannedNotification, stamp: string): number | undefined {
+function claim(db: Db, planned: Omit<PlannedNotification, 'message'> & { subject: string }, stamp: string): number | undefined {
   const inserted = db
     .insert(notifications)
     .values({
@@ -202,7 +204,7 @@ function claim(db: Db, planned: PlannedNotification, stamp: string): number | un
       type: planned.type,
       recipientUserId: planned.recipient.id,
       recipientEmail: planned.recipient.email,
-      subject: planned.message.subject,
+      subject: planned.subject,
       entityType: planned.entityType,
       entityId: planned.entityId,
       dedupeKey: planned.dedupeKey,
@@ -233,7 +235,7 @@ async function deliver(deps: NotifierDeps, planned: readonly PlannedNotification
         counts.switchedOff += 1;
         continue;
       }
-      const rowId = claim(deps.db, item, deps.clock.now().toISOString());
+      const rowId = claim(deps.db, { ...item, subject: item.message.subject }, deps.clock.now().toISOString());
       if (rowId === undefined) {
         counts.duplicates += 1;
         continue;
@@ -470,6 +472,7 @@ function daysBetween(from: string, to: string): number {
  * review date is at most `reviewReminderDays` days away — or already past — to the organization's
  * managers and hygienists. The dedupe key holds the record id and its review date, so each
  * person hears once per record and running the job again the same day (or the next) sends nothing new.
+ * A person gets one e-mail per organization per run (a digest when several records are new to them).
  */
 export async function sendReviewReminders(deps: NotifierDeps): Promise<DeliveryCounts & { records: number }> {
   let due: Array<{ record: DecisionRecordRow; groupName: string; organizationName: string }>;
@@ -481,33 +484,115 @@ export async function sendReviewReminders(deps: NotifierDeps): Promise<DeliveryC
       .innerJoin(exposureGroups, eq(exposureGroups.id, decisionRecords.exposureGroupId))
       .innerJoin(organizations, eq(organizations.id, decisionRecords.organizationId))
       .where(and(eq(decisionRecords.status, 'approved'), eq(exposureGroups.archived, false), lte(decisionRecords.reviewDate, addDays(day, reviewReminderDays))))
-      .orderBy(decisionRecords.reviewDate, decisionRecords.id)
+      .orderBy(decisionRecords.organizationId, decisionRecords.reviewDate, decisionRecords.id)
       .all();
   } catch (error) {
     deps.logger.error({ err: error }, 'the review reminders could not be read');
     return { ...noCounts(), failed: 1, records: 0 };
   }
+  const byOrganization = new Map<number, typeof due>();
+  for (const entry of due) {
+    const list = byOrganization.get(entry.record.organizationId);
+    if (list) list.push(entry);
+    else byOrganization.set(entry.record.organizationId, [entry]);
+  }
   let total = noCounts();
-  for (const { record, groupName, organizationName } of due) {
-    const counts = await planAndDeliver(deps, 'review-reminder', () =>
-      membersWithRoles(deps.db, record.organizationId, ['manager', 'hygienist']).map((recipient) => ({
-        type: 'reviewDue' as const,
-        organizationId: record.organizationId,
-        recipient,
-        entityType: recordEntity,
-        entityId: String(record.id),
-        dedupeKey: `reviewDue:${recordEntity}:${record.id}:${record.reviewDate}:user:${recipient.id}`,
-        message: reviewDueEmail({
-          ...envelope(deps, recipient, organizationName, recordLink(deps, record.organizationId, record.id)),
-          groupName,
-          recordId: record.id,
-          reviewDate: record.reviewDate,
-          daysLeft: daysBetween(day, record.reviewDate),
-          categoryText: exposureCategoryDescription(record.category as ExposureCategory),
-        }),
-      })),
-    );
-    total = addCounts(total, counts);
+  for (const [organizationId, entries] of byOrganization) {
+    let recipients: Recipient[];
+    try {
+      recipients = membersWithRoles(deps.db, organizationId, ['manager', 'hygienist']);
+    } catch (error) {
+      deps.logger.error({ err: error, organizationId }, 'the review-reminder recipients could not be read');
+      total = addCounts(total, { ...noCounts(), failed: 1 });
+      continue;
+    }
+    const items = entries.map(({ record, groupName, organizationName }) => ({
+      record,
+      organizationName,
+      item: {
+        groupName,
+        recordId: record.id,
+        reviewDate: record.reviewDate,
+        daysLeft: daysBetween(day, record.reviewDate),
+        categoryText: exposureCategoryDescription(record.category as ExposureCategory),
+      },
+    }));
+    for (const recipient of recipients) total = addCounts(total, await remindOnePerson(deps, organizationId, recipient, items));
   }
   return { ...total, records: due.length };
+}
+
+/**
+ * One person's reminders in one organization: claims a dedupe key per record (so each record and
+ * review date is reminded once per person, as before) and sends what is new as one e-mail — the single
+ * record's message, or a digest listing them all — so a first run over hundreds of overdue records
+ * sends one message per person, not hundreds. Every claimed row gets the e-mail's subject and outcome.
+ * Counts: `sent`/`failed` are e-mails; `duplicates`/`switchedOff` are record reminders. Never throws.
+ */
+async function remindOnePerson(
+  deps: NotifierDeps,
+  organizationId: number,
+  recipient: Recipient,
+  items: ReadonlyArray<{ record: DecisionRecordRow; organizationName: string; item: ReviewDueItem }>,
+): Promise<DeliveryCounts> {
+  const counts = noCounts();
+  let claimed: Array<{ rowId: number; item: ReviewDueItem }>;
+  let message: MailMessage;
+  try {
+    if (!wantsNotification(deps.db, recipient.id, organizationId, 'reviewDue')) return { ...counts, switchedOff: items.length };
+    const organizationName = items[0]!.organizationName;
+    const stamp = deps.clock.now().toISOString();
+    claimed = deps.db.transaction(() =>
+      items.flatMap(({ record, item }) => {
+        const rowId = claim(
+          deps.db,
+          {
+            type: 'reviewDue',
+            organizationId,
+            recipient,
+            entityType: recordEntity,
+            entityId: String(record.id),
+            dedupeKey: `reviewDue:${recordEntity}:${record.id}:${record.reviewDate}:user:${recipient.id}`,
+            subject: `Review due: ${item.groupName}`,
+          },
+          stamp,
+        );
+        if (rowId === undefined) {
+          counts.duplicates += 1;
+          return [];
+        }
+        return [{ rowId, item }];
+      }),
+    );
+    if (claimed.length === 0) return counts;
+    message =
+      claimed.length === 1
+        ? reviewDueEmail({ ...envelope(deps, recipient, organizationName, recordLink(deps, organizationId, claimed[0]!.item.recordId)), ...claimed[0]!.item })
+        : reviewDueDigestEmail({
+            ...envelope(deps, recipient, organizationName, `${deps.config.appUrl}/orgs/${organizationId}`),
+            items: claimed.map(({ item }) => item),
+          });
+  } catch (error) {
+    deps.logger.error({ err: error, organizationId, recipient: recipient.id }, 'the review reminders could not be prepared');
+    return { ...counts, failed: counts.failed + 1 };
+  }
+  const rowIds = claimed.map(({ rowId }) => rowId);
+  try {
+    await deps.mailer.send(message);
+    deps.db
+      .update(notifications)
+      .set({ subject: message.subject, sentAt: deps.clock.now().toISOString(), error: null })
+      .where(inArray(notifications.id, rowIds))
+      .run();
+    counts.sent += 1;
+  } catch (error) {
+    counts.failed += 1;
+    deps.db
+      .update(notifications)
+      .set({ subject: message.subject, error: errorText(error) })
+      .where(inArray(notifications.id, rowIds))
+      .run();
+    deps.logger.error({ err: error, type: 'reviewDue', recipient: recipient.id }, 'a review-reminder e-mail could not be sent');
+  }
+  return counts;
 }

@@ -6,7 +6,7 @@ import { SummaryCounts, SummaryCountsSkeleton } from '@frontend/features/organiz
 import { useDashboard } from '@frontend/features/dashboard/api/get-dashboard';
 import { useMyOverview } from '@frontend/features/dashboard/api/get-my-overview';
 import { CategoryMatrix } from '@frontend/features/dashboard/components/category-matrix';
-import { AttentionLists, ReviewLists, SamplingProgress } from '@frontend/features/dashboard/components/group-lists';
+import { AttentionLists, groupsById, ReviewLists, SamplingProgress } from '@frontend/features/dashboard/components/group-lists';
 import { MyOrganizations } from '@frontend/features/dashboard/components/my-organizations';
 import { DecisionList } from '@frontend/features/decision-records/components/decision-list';
 import { CategoryLegend } from '@frontend/components/category-legend';
@@ -101,6 +101,7 @@ function DashboardSections({ organizationId, dashboard }: { organizationId: stri
   if (dashboard.isError)
     return <ErrorState title="Could not load the dashboard" error={dashboard.error} onRetry={() => dashboard.refetch()} className="mb-6" />;
   const data = dashboard.data;
+  const byId = groupsById(data);
   return (
     <div className="mb-6 space-y-6">
       <section aria-labelledby="matrix-title">
@@ -112,19 +113,19 @@ function DashboardSections({ organizationId, dashboard }: { organizationId: stri
           {data.counts.outOfDate > 0 ? `; ${data.counts.outOfDate} out of date (results changed since approval)` : ''}
           {data.counts.openDrafts > 0 ? `; ${data.counts.openDrafts} open drafts` : ''}.
         </p>
-        <CategoryMatrix organizationId={organizationId} matrix={data.matrix} />
+        <CategoryMatrix organizationId={organizationId} matrix={data.matrix} byId={byId} />
       </section>
       <section aria-labelledby="attention-title">
         <h2 id="attention-title" className="mb-2 text-base">
           Groups needing attention
         </h2>
-        <AttentionLists organizationId={organizationId} dashboard={data} />
+        <AttentionLists organizationId={organizationId} dashboard={data} byId={byId} />
       </section>
       <section aria-labelledby="reviews-title">
         <h2 id="reviews-title" className="mb-2 text-base">
           Review dates
         </h2>
-        <ReviewLists organizationId={organizationId} dashboard={data} />
+        <ReviewLists organizationId={organizationId} dashboard={data} byId={byId} />
       </section>
       <section aria-labelledby="progress-title">
         <h2 id="progress-title" className="mb-2 text-base">

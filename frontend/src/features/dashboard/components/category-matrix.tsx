@@ -1,12 +1,21 @@
 import { Link } from 'react-router';
 import type { OrganizationDashboard } from '@schema/dashboard';
 import { CategoryBadge, exposureCategories } from '@frontend/components/category-badge';
+import { resolveGroups, type DashboardGroupsById } from './group-lists';
 
 /**
  * Sites down, exposure categories 0–4 across (plus "no approved record"): each cell lists its groups. A
  * group's category is its current approved decision record's; "out of date" marks results changed since.
  */
-export function CategoryMatrix({ organizationId, matrix }: { organizationId: string; matrix: OrganizationDashboard['matrix'] }) {
+export function CategoryMatrix({
+  organizationId,
+  matrix,
+  byId,
+}: {
+  organizationId: string;
+  matrix: OrganizationDashboard['matrix'];
+  byId: DashboardGroupsById;
+}) {
   const groupLink = (group: { id: number; name: string; outOfDate: boolean }) => (
     <li key={group.id}>
       <Link to={`/orgs/${encodeURIComponent(organizationId)}/exposure-groups/${group.id}/decisions`}>{group.name}</Link>
@@ -40,12 +49,12 @@ export function CategoryMatrix({ organizationId, matrix }: { organizationId: str
               </th>
               {row.cells.map((cell, category) => (
                 <td key={category} className="px-3 py-2">
-                  {cell.length > 0 ? <ul className="space-y-1">{cell.map(groupLink)}</ul> : <span className="text-slate-400">–</span>}
+                  {cell.length > 0 ? <ul className="space-y-1">{resolveGroups(cell, byId).map(groupLink)}</ul> : <span className="text-slate-400">–</span>}
                 </td>
               ))}
               <td className="px-3 py-2">
                 {row.undecided.length > 0 ? (
-                  <ul className="space-y-1 text-slate-700">{row.undecided.map(groupLink)}</ul>
+                  <ul className="space-y-1 text-slate-700">{resolveGroups(row.undecided, byId).map(groupLink)}</ul>
                 ) : (
                   <span className="text-slate-400">–</span>
                 )}

@@ -3,6 +3,22 @@ import type { DashboardGroup, OrganizationDashboard } from '@schema/dashboard';
 import { CategoryBadge } from '@frontend/components/category-badge';
 import { formatCalendarDate } from '@frontend/lib/format';
 
+/** The dashboard's groups by id: its lists and matrix cells carry group ids only. */
+export type DashboardGroupsById = ReadonlyMap<number, DashboardGroup>;
+
+/** Indexes the dashboard's groups by id (once per answer; the lists refer to them). */
+export function groupsById(dashboard: OrganizationDashboard): DashboardGroupsById {
+  return new Map(dashboard.groups.map((group) => [group.id, group]));
+}
+
+/** The groups for a list of ids, in the list's order (an id the answer does not hold is skipped). */
+export function resolveGroups(ids: readonly number[], byId: DashboardGroupsById): DashboardGroup[] {
+  return ids.flatMap((id) => {
+    const group = byId.get(id);
+    return group ? [group] : [];
+  });
+}
+
 function GroupLine({ organizationId, group, detail }: { organizationId: string; group: DashboardGroup; detail?: string }) {
   return (
     <li className="flex flex-wrap items-center gap-2 py-1">
@@ -49,43 +65,48 @@ function Panel({
 }
 
 /** Groups judged unacceptable or uncertain on their current approved records. */
-export function AttentionLists({ organizationId, dashboard }: { organizationId: string; dashboard: OrganizationDashboard }) {
+export function AttentionLists({ organizationId, dashboard, byId }: { organizationId: string; dashboard: OrganizationDashboard; byId: DashboardGroupsById }) {
   return (
     <div className="grid gap-3 md:grid-cols-2">
       <Panel
         id="unacceptable-title"
         title="Unacceptable groups"
         empty="No group is judged unacceptable."
-        groups={dashboard.unacceptable}
+        groups={resolveGroups(dashboard.unacceptable, byId)}
         organizationId={organizationId}
       />
-      <Panel id="uncertain-title" title="Uncertain groups" empty="No group is judged uncertain." groups={dashboard.uncertain} organizationId={organizationId} />
+      <Panel
+        id="uncertain-title"
+        title="Uncertain groups"
+        empty="No group is judged uncertain."
+        groups={resolveGroups(dashboard.uncertain, byId)}
+        organizationId={organizationId}
+      />
     </div>
   );
 }
 
 /** Review dates overdue, due within 30 days and within 31–90 days. */
-export function ReviewLists({ organizationId, dashboard }: { organizationId: string; dashboard: OrganizationDashboard }) {
+export function ReviewLists({ organizationId, dashboard, byId }: { organizationId: string; dashboard: OrganizationDashboard; byId: DashboardGroupsById }) {
   const due = (group: DashboardGroup) => `review ${formatCalendarDate(group.reviewDate)}`;
+  const lists = [
+    { id: 'overdue-title', title: 'Reviews overdue', empty: 'None overdue.', ids: dashboard.reviews.overdue },
+    { id: 'due30-title', title: 'Due within 30 days', empty: 'None due in 30 days.', ids: dashboard.reviews.within30 },
+    { id: 'due90-title', title: 'Due in 31–90 days', empty: 'None due in 31–90 days.', ids: dashboard.reviews.within90 },
+  ];
   return (
     <div className="grid gap-3 md:grid-cols-3">
-      <Panel id="overdue-title" title="Reviews overdue" empty="None overdue." groups={dashboard.reviews.overdue} organizationId={organizationId} detail={due} />
-      <Panel
-        id="due30-title"
-        title="Due within 30 days"
-        empty="None due in 30 days."
-        groups={dashboard.reviews.within30}
-        organizationId={organizationId}
-        detail={due}
-      />
-      <Panel
-        id="due90-title"
-        title="Due in 31–90 days"
-        empty="None due in 31–90 days."
-        groups={dashboard.reviews.within90}
-        organizationId={organizationId}
-        detail={due}
-      />
+      {lists.map((list) => (
+        <Panel
+          key={list.id}
+          id={list.id}
+          title={list.title}
+          empty={list.empty}
+          groups={resolveGroups(list.ids, byId)}
+          organizationId={organizationId}
+          detail={due}
+        />
+      ))}
     </div>
   );
 }

@@ -3,6 +3,8 @@ import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { GroupWorkerLetters, WorkerLetterView } from '@schema/worker-letters';
 import { agentId, auditOf, groupId, siteId, workerId } from '../helpers/org-data';
+import type { Mailer, MailMessage } from '../../backend/src/email/mailer';
+import { sendWorkerLetter } from '../../backend/src/services/worker-letters';
 import { createTestContext, type SignedIn, type TestContext } from '../helpers/test-app';
 
 /*
@@ -235,6 +237,41 @@ describe('worker letters', () => {
     const sendCancelled = await hygienist.post(`${base}/worker-letters/${id}/send`);
     expect(sendCancelled.status).toBe(409);
     expect(sendCancelled.body.error.message).toContain('was cancelled');
+  });
+
+  it('refuses to cancel or hand over a letter while its e-mail is on its way (409), and records it sent once the mail server accepts', async () => {
+    const result = await hygienist.post(`${base}/shift-results`, { exposureGroupId: noiseGroup, workerId: named, date: '2025-02-20', value: 88.4 });
+    expect(result.status, JSON.stringify(result.body)).toBe(201);
+    const drafted = await hygienist.post(`${base}/exposure-groups/${noiseGroup}/worker-letters`, { resultIds: [result.body.id] });
+    expect(drafted.status, JSON.stringify(drafted.body)).toBe(201);
+    const id = drafted.body.letters[0].id as number;
+    // A mail server that holds the message until the test lets it go.
+    let release: () => void = () => undefined;
+    let accepted: (message: MailMessage) => void = () => undefined;
+    const reached = new Promise<MailMessage>((resolve) => (accepted = resolve));
+    const slowMailer: Mailer = {
+      send: (message) =>
+        new Promise<void>((resolve) => {
+          release = resolve;
+          accepted(message);
+        }),
+      close: () => undefined,
+    };
+    const sending = sendWorkerLetter(context.db, context.clock, slowMailer, { organizationId: ridgeback, letterId: id, actor: hygienist.user });
+    expect((await reached).to).toBe(address);
+
+    const cancel = await hygienist.post(`${base}/worker-letters/${id}/cancel`, { reason: 'Changed my mind mid-send' });
+    expect(cancel.status).toBe(409);
+    expect(cancel.body.error.message).toBe(`Worker letter ${id} is being e-mailed right now: it cannot be cancelled. Reload in a moment.`);
+    const handOver = await hygienist.post(`${base}/worker-letters/${id}/hand-over`, { handedOverOn: '2025-03-03' });
+    expect(handOver.status).toBe(409);
+    expect(handOver.body.error.message).toContain('is being e-mailed right now');
+    const again = await hygienist.post(`${base}/worker-letters/${id}/send`);
+    expect(again.status).toBe(409);
+
+    release();
+    await expect(sending).resolves.toMatchObject({ id, status: 'sent', delivery: 'email' });
+    expect(auditOf(context.db, 'worker_letter', id).map((event) => event.action)).toEqual(['drafted', 'sent']);
   });
 
   it('refuses to send a letter whose result was voided after drafting (409)', async () => {

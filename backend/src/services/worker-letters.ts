@@ -349,8 +349,16 @@ function recordDelivery(
   });
 }
 
-/** Letters being e-mailed right now, so a double click never sends a letter twice. */
+/**
+ * Letters being e-mailed right now (this process runs every request): a double click never sends a
+ * letter twice, and a letter cannot be cancelled or marked handed over while its e-mail is on its way
+ * (the e-mail would go out with the record saying otherwise).
+ */
 const sending = new Set<number>();
+
+function requireNotSending(letterId: number, action: string): void {
+  if (sending.has(letterId)) throw new Conflict(`Worker letter ${letterId} is being e-mailed right now: it cannot be ${action}. Reload in a moment.`);
+}
 
 /**
  * E-mails a drafted letter (HTML and text, PDF attached) to the worker's address and records it as
@@ -371,7 +379,7 @@ export async function sendWorkerLetter(
       `Worker ${worker.code} has no e-mail address. Print the letter (PDF), hand it over and mark it handed over, or add an address on the worker's page and send again.`,
       { pdf: `worker-letters/${letter.id}.pdf`, handOver: `worker-letters/${letter.id}/hand-over` },
     );
-  if (sending.has(letter.id)) throw new Conflict(`Worker letter ${letter.id} is being sent right now`);
+  requireNotSending(letter.id, 'sent again');
   sending.add(letter.id);
   try {
     const pdf = await workerLetterPdf(letter.content, new Date(letter.draftedAt));
@@ -405,6 +413,7 @@ export async function handOverWorkerLetter(
 ): Promise<WorkerLetterView> {
   const { letter } = letterOrNotFound(db, input.organizationId, input.letterId);
   requireDrafted(letter, 'handed over');
+  requireNotSending(letter.id, 'marked handed over');
   requireResultsStillValid(db, letter);
   const draftedOn = letter.draftedAt.slice(0, 10);
   if (input.handedOverOn < draftedOn) throw fieldError('handedOverOn', `The letter was drafted on ${draftedOn}: it cannot have been handed over before that`);
@@ -430,6 +439,7 @@ export function cancelWorkerLetter(
   db.transaction((tx) => {
     const { letter } = letterOrNotFound(tx, input.organizationId, input.letterId);
     requireDrafted(letter, 'cancelled');
+    requireNotSending(letter.id, 'cancelled');
     tx.update(workerLetters)
       .set({ status: 'cancelled', cancelledAt: now.toISOString(), cancelledByUserId: input.actor.id, cancelReason: input.reason, updatedAt: now.toISOString() })
       .where(eq(workerLetters.id, letter.id))

@@ -17,9 +17,19 @@ import type { AgentListQuery, ListPage, OelEntryListQuery } from '@schema/list-q
 import type { Clock } from '../clock';
 import type { Db } from '../db/client';
 import { Conflict, NotFound } from '../errors';
-import { audit, changedFields, fieldError, fieldErrors, ownedOrFieldError, ownedOrNotFound, sameNameRow, type Actor, type Tx } from './changes';
+import {
+  saveAuditedChange,
+  audit,
+  changedFields,
+  fieldError,
+  fieldErrors,
+  ownedOrFieldError,
+  ownedOrNotFound,
+  sameNameRow,
+  type Actor,
+  type Tx,
+} from './changes';
 import { archivedCondition, orderBy, pageOf, pageWindow, qualified, searchCondition } from './list';
-import { archiveAction } from './sites';
 
 /** An agent with the number of groups (in use) and OEL list entries (in use) that refer to it. */
 export type AgentView = Agent & { exposureGroupCount: number; oelEntryCount: number };
@@ -139,16 +149,11 @@ export function updateAgent(
       throw new Conflict(`"${current.name}" is the agent of ${usage.activeGroups} exposure group(s) in use: archive those first`);
     }
     if (after.name !== undefined) checkAgentNameFree(tx, input.organizationId, String(after.name), current.id);
-    tx.update(agents)
-      .set({ ...after, updatedAt: now.toISOString() })
-      .where(eq(agents.id, current.id))
-      .run();
-    audit(tx, {
+    saveAuditedChange(tx, agents, {
       organizationId: input.organizationId,
       actor: input.actor,
       entityType: 'agent',
       entityId: current.id,
-      action: archiveAction(after) ?? 'updated',
       reason: input.reason,
       before,
       after,
@@ -281,16 +286,11 @@ export function updateOelEntry(
     const agent =
       after.agentId !== undefined ? agentFromBody(tx, input.organizationId, Number(after.agentId)) : findAgent(tx, input.organizationId, current.agentId);
     checkUnitFitsAgent(agent, (after.unit as ExposureUnit | undefined) ?? current.unit, 'unit');
-    tx.update(oelEntries)
-      .set({ ...after, updatedAt: now.toISOString() })
-      .where(eq(oelEntries.id, current.id))
-      .run();
-    audit(tx, {
+    saveAuditedChange(tx, oelEntries, {
       organizationId: input.organizationId,
       actor: input.actor,
       entityType: 'oel_entry',
       entityId: current.id,
-      action: archiveAction(after) ?? 'updated',
       reason: input.reason,
       before,
       after,

@@ -11,6 +11,55 @@ export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0] | Db;
 /** Who makes a change (null for the demo seed). */
 export type Actor = Pick<User, 'id'> | null;
 
+/** 'archived' / 'unarchived' when the archived flag is what changed, else undefined. */
+export function archiveAction(after: Record<string, unknown>): 'archived' | 'unarchived' | undefined {
+  if (after.archived === true) return 'archived';
+  if (after.archived === false) return 'unarchived';
+  return undefined;
+}
+
+/** An organization's editable list: rows with an integer `id` and an `updatedAt` stamp. */
+type EditableTable = AnySQLiteTable & { id: AnySQLiteColumn; updatedAt: AnySQLiteColumn };
+
+/**
+ * Saves an edit of one row and its audit event, in the caller's transaction: the row gets `set`
+ * (default: `after`, the changed fields) and a new `updatedAt`; the event is 'archived' or
+ * 'unarchived' when the archived flag changed, else 'updated', with `before`/`after` as given (a
+ * service may redact them, e.g. a worker's name becomes "name recorded").
+ */
+export function saveAuditedChange(
+  tx: Tx,
+  table: EditableTable,
+  change: {
+    organizationId: number;
+    actor: Actor;
+    entityType: string;
+    entityId: number;
+    reason?: string | null;
+    before: Record<string, unknown>;
+    after: Record<string, unknown>;
+    set?: Record<string, unknown>;
+    at: Date;
+  },
+): void {
+  // The fields come from the table's own zod schema in each service; drizzle cannot type a set for any table.
+  tx.update(table)
+    .set({ ...(change.set ?? change.after), updatedAt: change.at.toISOString() } as never)
+    .where(eq(table.id, change.entityId))
+    .run();
+  audit(tx, {
+    organizationId: change.organizationId,
+    actor: change.actor,
+    entityType: change.entityType,
+    entityId: change.entityId,
+    action: archiveAction(change.after) ?? 'updated',
+    reason: change.reason,
+    before: change.before,
+    after: change.after,
+    at: change.at,
+  });
+}
+
 /**
  * The fields of `changes` whose value differs from `current`, as `{ before, after }` for the
  * audit trail; arrays and objects are compared by their JSON.

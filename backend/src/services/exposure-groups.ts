@@ -10,10 +10,9 @@ import type { Clock } from '../clock';
 import type { Db } from '../db/client';
 import { Conflict, NotFound } from '../errors';
 import { agentFromBody, checkUnitFitsAgent, getOelEntry } from './agents';
-import { audit, changedFields, fieldError, ownedOrFieldError, ownedOrNotFound, type Actor, type Tx } from './changes';
+import { saveAuditedChange, audit, changedFields, fieldError, ownedOrFieldError, ownedOrNotFound, type Actor, type Tx } from './changes';
 import { today } from './dates';
 import { archivedCondition, orderBy, pageOf, pageWindow, qualified, searchCondition } from './list';
-import { archiveAction } from './sites';
 
 /** The limit a group's results are judged against, after any extended-shift adjustment. */
 export interface EffectiveOel {
@@ -314,16 +313,11 @@ export function updateExposureGroup(
         );
     }
     if ('name' in after || 'siteId' in after) checkGroupNameFree(tx, merged.siteId, merged.name, current.id);
-    tx.update(exposureGroups)
-      .set({ ...(after as Partial<ExposureGroup>), updatedAt: now.toISOString() })
-      .where(eq(exposureGroups.id, current.id))
-      .run();
-    audit(tx, {
+    saveAuditedChange(tx, exposureGroups, {
       organizationId: input.organizationId,
       actor: input.actor,
       entityType: 'exposure_group',
       entityId: current.id,
-      action: archiveAction(after) ?? 'updated',
       reason: input.reason,
       before,
       after,

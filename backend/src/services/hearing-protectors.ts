@@ -19,10 +19,9 @@ import { nioshRel, oshaHc, oshaPel, twaFromDose } from '@stats/noise-criteria';
 import type { Clock } from '../clock';
 import type { Db } from '../db/client';
 import { Conflict, NotFound, Unprocessable } from '../errors';
-import { audit, changedFields, fieldError, ownedOrFieldError, ownedOrNotFound, sameNameRow, type Actor, type Tx } from './changes';
+import { saveAuditedChange, audit, changedFields, fieldError, ownedOrFieldError, ownedOrNotFound, sameNameRow, type Actor, type Tx } from './changes';
 import { getExposureGroup, type ExposureGroupView } from './exposure-groups';
 import { organizationSettingsOf, saveOrganizationSettings } from './organization-settings';
-import { archiveAction } from './sites';
 
 /*
  * Hearing-protector adequacy (docs/decisions/023-hearing-protectors-and-mixtures.md): the
@@ -123,16 +122,11 @@ export function updateHearingProtector(
     if (hml > 0 && hml < 3)
       throw fieldError(merged.h === null ? 'h' : merged.m === null ? 'm' : 'l', 'Give H, M and L together (the HML method needs all three)');
     if (after.name !== undefined) checkNameFree(tx, input.organizationId, String(after.name), current.id);
-    tx.update(hearingProtectors)
-      .set({ ...after, updatedAt: now.toISOString() })
-      .where(eq(hearingProtectors.id, current.id))
-      .run();
-    audit(tx, {
+    saveAuditedChange(tx, hearingProtectors, {
       organizationId: input.organizationId,
       actor: input.actor,
       entityType: 'hearing_protector',
       entityId: current.id,
-      action: archiveAction(after) ?? 'updated',
       reason: input.reason,
       before,
       after,

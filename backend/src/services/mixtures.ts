@@ -8,9 +8,8 @@ import { mixtureIndex } from '@stats/mixture-index';
 import type { Clock } from '../clock';
 import type { Db } from '../db/client';
 import { Conflict, NotFound, Unprocessable } from '../errors';
-import { audit, fieldError, ownedOrFieldError, sameNameRow, type Actor, type Tx } from './changes';
+import { saveAuditedChange, audit, fieldError, ownedOrFieldError, sameNameRow, type Actor, type Tx } from './changes';
 import { effectiveOelOf, findExposureGroup, touchGroupResults } from './exposure-groups';
-import { archiveAction } from './sites';
 import { insertShiftResult } from './shift-results';
 import { isMemberOn } from './workers';
 
@@ -211,19 +210,15 @@ export function updateMixture(
       }
     }
     if (Object.keys(after).length === 0) return;
-    tx.update(agents)
-      .set({ ...set, updatedAt: stamp })
-      .where(eq(agents.id, current.id))
-      .run();
-    audit(tx, {
+    saveAuditedChange(tx, agents, {
       organizationId: input.organizationId,
       actor: input.actor,
       entityType: 'agent',
       entityId: current.id,
-      action: archiveAction(after) ?? 'updated',
       reason: input.reason,
       before,
       after,
+      set: set,
       at: now,
     });
   });

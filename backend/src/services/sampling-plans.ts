@@ -17,11 +17,10 @@ import { groupMemberships, workers } from '@schema/workers';
 import type { Clock } from '../clock';
 import type { Db } from '../db/client';
 import { Conflict } from '../errors';
-import { audit, changedFields, fieldError, ownedOrNotFound, type Actor, type Tx } from './changes';
+import { archiveAction, audit, changedFields, fieldError, ownedOrNotFound, type Actor, type Tx } from './changes';
 import { weekdayOf } from './dates';
 import { effectiveOelOf, findExposureGroup } from './exposure-groups';
 import { candidateShifts, drawShifts, newSeed } from './sampling-draw';
-import { archiveAction } from './sites';
 import { workerReference, type NameAccess, type WorkerReference } from './workers';
 
 /** Cautions shown wherever plans and results are (PRODUCT.md "Cautions shown in the product"). */

@@ -5,7 +5,7 @@ import { sites, type Site, type SiteCreate, type SiteUpdate } from '@schema/site
 import type { Clock } from '../clock';
 import type { Db } from '../db/client';
 import { Conflict } from '../errors';
-import { audit, changedFields, ownedOrNotFound, sameNameRow, type Actor, type Tx } from './changes';
+import { saveAuditedChange, audit, changedFields, ownedOrNotFound, sameNameRow, type Actor, type Tx } from './changes';
 import { archivedCondition, orderBy, pageOf, pageWindow, qualified, searchCondition } from './list';
 
 /** A site with the number of its exposure groups in use. */
@@ -100,16 +100,11 @@ export function updateSite(
           `Site "${current.name}" still has ${inUse} exposure group${inUse === 1 ? '' : 's'} in use: archive ${inUse === 1 ? 'it' : 'them'} first`,
         );
     }
-    tx.update(sites)
-      .set({ ...after, updatedAt: now.toISOString() })
-      .where(eq(sites.id, current.id))
-      .run();
-    audit(tx, {
+    saveAuditedChange(tx, sites, {
       organizationId: input.organizationId,
       actor: input.actor,
       entityType: 'site',
       entityId: current.id,
-      action: archiveAction(after) ?? 'updated',
       reason: input.reason,
       before,
       after,
@@ -117,11 +112,4 @@ export function updateSite(
     });
   });
   return getSite(db, input.organizationId, input.siteId);
-}
-
-/** 'archived' / 'unarchived' when the archived flag is what changed, else undefined. */
-export function archiveAction(after: Record<string, unknown>): 'archived' | 'unarchived' | undefined {
-  if (after.archived === true) return 'archived';
-  if (after.archived === false) return 'unarchived';
-  return undefined;
 }

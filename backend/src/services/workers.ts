@@ -15,11 +15,10 @@ import {
 import type { Clock } from '../clock';
 import type { Db } from '../db/client';
 import { Conflict } from '../errors';
-import { audit, changedFields, fieldError, ownedOrFieldError, ownedOrNotFound, type Actor, type Tx } from './changes';
+import { saveAuditedChange, audit, changedFields, fieldError, ownedOrFieldError, ownedOrNotFound, type Actor, type Tx } from './changes';
 import { today } from './dates';
 import { exposureGroupFromBody, findExposureGroup } from './exposure-groups';
 import { archivedCondition, orderBy, pageOf, pageWindow, qualified, searchCondition } from './list';
-import { archiveAction } from './sites';
 
 /*
  * Workers and their group membership over time. Names are personal data: they are sent only to
@@ -230,19 +229,15 @@ export function updateWorker(
     const { before, after } = changedFields(current, changes as Partial<Worker>);
     if (Object.keys(after).length === 0) return;
     if (after.code !== undefined) checkCodeFree(tx, input.organizationId, String(after.code), current.id);
-    tx.update(workers)
-      .set({ ...(after as Partial<Worker>), updatedAt: now.toISOString() })
-      .where(eq(workers.id, current.id))
-      .run();
-    audit(tx, {
+    saveAuditedChange(tx, workers, {
       organizationId: input.organizationId,
       actor: input.actor,
       entityType: 'worker',
       entityId: current.id,
-      action: archiveAction(after) ?? 'updated',
       reason: input.reason,
       before: workerAuditFields(before as Partial<Worker>),
       after: workerAuditFields(after as Partial<Worker>),
+      set: after,
       at: now,
     });
   });

@@ -147,6 +147,19 @@ describe('mixtures', () => {
     await panel.getByText(/Computing replaces the 1 mixture result now in the group/).waitFor();
     await screenshot(page, 'mixtures-group-computed');
     expect(severe((await axeScan(page)).violations)).toEqual([]);
+
+    // Back on the agents page: rename the mixture and add notes; its components are now fixed by the computed result.
+    await page.goto(`${organizationBase(page)}/agents`);
+    await page.getByRole('button', { name: 'Edit mixture Solvents A + B (e2e)' }).click();
+    const edit = page.getByRole('form', { name: 'Edit mixture Solvents A + B (e2e)' });
+    await edit.getByText('The components are fixed: 1 valid mixture result(s) were computed from them.', { exact: false }).waitFor();
+    expect(await edit.getByRole('checkbox', { name: 'Solvent A (e2e)' }).isDisabled()).toBe(true);
+    await edit.getByLabel('Mixture name').fill('Finishing solvents (e2e)');
+    await edit.getByLabel('Notes (optional)').fill('Both act on the central nervous system.');
+    await edit.getByRole('button', { name: 'Save changes' }).click();
+    await page.getByText('Mixture “Finishing solvents (e2e)” saved.').waitFor();
+    await page.getByRole('row').filter({ hasText: 'Finishing solvents (e2e)' }).getByText('Both act on the central nervous system.').waitFor();
+    await screenshot(page, 'mixtures-edited');
     assertClean();
     await context.close();
   });

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { MixtureCreate } from '@schema/mixtures';
+import type { MixtureCreate, MixtureUpdate } from '@schema/mixtures';
 import { api, apiPath } from '@frontend/lib/api-client';
-import { useOrganizationMutation } from '@frontend/lib/org-mutation';
+import { setArchived, useOrganizationMutation } from '@frontend/lib/org-mutation';
 import { orgKeys } from '@frontend/lib/query-keys';
 
 /* Mixtures of agents with similar effects, and the mixture index results of a mixture group. */
@@ -55,6 +55,25 @@ export function useCreateMixture(organizationId: string) {
     mixtureKeys,
     orgKeys.agents,
   ]);
+}
+
+/** PATCH /api/orgs/:orgId/mixtures/:mixtureId (data:edit); components only while the mixture has no valid results (else 409). */
+export function useUpdateMixture(organizationId: string) {
+  return useOrganizationMutation(
+    organizationId,
+    ({ mixtureId, changes }: { mixtureId: number; changes: MixtureUpdate }) => api.patch<MixtureView>(`${base(organizationId)}/mixtures/${mixtureId}`, changes),
+    [mixtureKeys, orgKeys.agents, orgKeys.exposureGroups],
+  );
+}
+
+/** POST …/mixtures/:mixtureId/archive | unarchive (data:edit); 409 while a group in use has the mixture. */
+export function useArchiveMixture(organizationId: string) {
+  return useOrganizationMutation(
+    organizationId,
+    ({ mixtureId, archived, reason }: { mixtureId: number; archived: boolean; reason?: string }) =>
+      setArchived<MixtureView>(`${base(organizationId)}/mixtures/${mixtureId}`, archived, reason),
+    [mixtureKeys, orgKeys.agents],
+  );
 }
 
 /** GET …/exposure-groups/:groupId/mixture-preview (org:read): what computing would write, skip and replace. */

@@ -67,12 +67,29 @@ function oshaEstimate(functionName: string, noise: NoiseAtWorkplace, nrr: number
   };
 }
 
+/** Extra protection credited when an earplug and an earmuff are worn together (dB). */
+export const DUAL_PROTECTION_EXTRA_DB = 5;
+
 /**
- * The NRR credited to plug + muff worn together: the higher NRR + 5 dB (OSHA Technical Manual,
- * Section III Chapter 5; from memory). oshaDualProtectionNrr(29, 25) → 34.
+ * Level at the ear with an earplug and an earmuff worn together, by the OSHA Technical Manual's rule
+ * (Section III Chapter 5; from memory): work out the estimate for the protector with the higher NRR
+ * (Appendix B, with or without the 50 % derating), then credit 5 dB more — the 5 dB is added after
+ * the derating, not to the NRR before it. With 100 dB(A), plug NRR 29 and muff NRR 25:
+ * derated 100 − (29 − 7)/2 − 5 = 84 dB(A); Appendix B 100 − (29 − 7) − 5 = 73 dB(A).
  */
-export function oshaDualProtectionNrr(nrrA: number, nrrB: number): number {
-  checkNrr('oshaDualProtectionNrr', nrrA);
-  checkNrr('oshaDualProtectionNrr', nrrB);
-  return Math.max(nrrA, nrrB) + 5;
+export function oshaDualLevelAtEar(noise: NoiseAtWorkplace, plugNrr: number, muffNrr: number, options: { derated: boolean }): LevelAtEar {
+  const functionName = 'oshaDualLevelAtEar';
+  checkNrr(functionName, plugNrr);
+  checkNrr(functionName, muffNrr);
+  const higher = Math.max(plugNrr, muffNrr);
+  const single = oshaEstimate(functionName, noise, higher, options.derated ? 0.5 : 1);
+  const level = single.levelAtEarDb - DUAL_PROTECTION_EXTRA_DB;
+  return {
+    method: options.derated ? 'osha-dual-derated' : 'osha-dual-appendix-b',
+    source: `${options.derated ? OSHA_DERATED_SOURCE : OSHA_APPENDIX_B_SOURCE}; earplug and earmuff together: the higher-rated protector's estimate less ${DUAL_PROTECTION_EXTRA_DB} dB (OSHA Technical Manual, Section III Chapter 5; from memory)`,
+    levelAtEarDb: level,
+    attenuationDb: noise.laDb - level,
+    working: `higher NRR ${higher} (of ${plugNrr} and ${muffNrr}): ${single.working.replace(/ = [^=]*$/, '')} − ${DUAL_PROTECTION_EXTRA_DB} = ${dbText(level)} dB(A)`,
+    assumptions: single.assumptions,
+  };
 }

@@ -130,6 +130,28 @@ describe('hearing protectors: the organization list, protectors in use and adequ
     expect(snr).toMatchObject({ levelAtEarDb: 54, verdict: 'over-protection', assumptions: [] });
   });
 
+  it('an earplug and an earmuff in use are also judged worn together: the higher-rated one’s estimate less 5 dB (hand-worked: 82 and 69 dB(A))', async () => {
+    const plug = await hygienist.post(`${base}/hearing-protectors`, { name: 'Test foam plug', type: 'formable-earplug', nrr: 33 });
+    expect(plug.status, JSON.stringify(plug.body)).toBe(201);
+    expect((await hygienist.post(`${base}/exposure-groups/${noiseGroup}/protectors`, { protectorId: plug.body.id })).status).toBe(201);
+    const answer = await manager.get(`${base}/exposure-groups/${noiseGroup}/protector-adequacy?level=typed&la=100`);
+    expect(answer.status, JSON.stringify(answer.body)).toBe(200);
+    expect(answer.body.combinations).toHaveLength(1);
+    const [pair] = answer.body.combinations as Array<{ plug: { name: string }; muff: { name: string }; estimates: Estimate[] }>;
+    expect([pair!.plug.name, pair!.muff.name]).toEqual(['Test foam plug', 'Test earmuff A']);
+    const byMethod = Object.fromEntries(pair!.estimates.map((estimate) => [estimate.method, estimate]));
+    // Higher NRR 33: derated 100 − (33 − 7)/2 − 5 = 82 (80–85) → acceptable; without derating 100 − 26 − 5 = 69 (< 70) → over-protection.
+    expect(byMethod['osha-dual-derated']).toMatchObject({ levelAtEarDb: 82, verdict: 'acceptable' });
+    expect(byMethod['osha-dual-appendix-b']).toMatchObject({ levelAtEarDb: 69, verdict: 'over-protection' });
+    expect(byMethod['osha-dual-derated']!.source).toMatch(/less 5 dB/);
+    // NIOSH and EN 458 have no combining rule: they say so rather than guess.
+    expect(byMethod['niosh-derated']!.unavailable).toMatch(/use a rating measured on the combination/);
+    expect(byMethod['en458-snr']!.unavailable).toMatch(/use a rating measured on the combination/);
+    // Two earmuffs or one protector alone make no pair.
+    expect((await hygienist.delete(`${base}/exposure-groups/${noiseGroup}/protectors/${plug.body.id}`)).status).toBe(200);
+    expect((await manager.get(`${base}/exposure-groups/${noiseGroup}/protector-adequacy?level=typed&la=100`)).body.combinations).toEqual([]);
+  });
+
   it('the verdict thresholds are organization settings: an admin changes them, a hygienist may not (403), bad margins answer 400', async () => {
     expect((await hygienist.put(`${base}/protector-settings`, {})).status).toBe(403);
     const defaults = await admin.get(`${base}/protector-settings`);

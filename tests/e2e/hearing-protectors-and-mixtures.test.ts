@@ -71,7 +71,7 @@ describe('hearing protectors', () => {
     await panel.getByLabel('LA, dB(A)').fill('100');
     await panel.getByRole('button', { name: 'Work out' }).click();
     await panel.getByText('Level typed in: LA 100 dB(A).').waitFor();
-    const table = panel.getByRole('table');
+    const table = panel.getByRole('table', { name: 'Level at the ear by protector and method' });
     // Hand-worked: OSHA App. B with 50 % derating 100 − (29 − 7)/2 = 89 (not enough); EN 458 SNR 102 − 30 = 72 (acceptable).
     const osha = table.getByRole('row').filter({ hasText: 'OSHA App. B, 50 % derated' });
     expect(await osha.innerText()).toMatch(/89\.0 dB\(A\)\s+Not enough/);
@@ -80,7 +80,25 @@ describe('hearing protectors', () => {
     expect(await snr.innerText()).toMatch(/LC = LA \+ 2 dB was assumed/);
     await panel.getByText(/OSHA gives no credit for hearing protectors/).waitFor();
     await screenshot(page, 'hearing-protectors-group-verdicts');
-    // The verdict table and level form have no serious or critical accessibility violations (axe-core).
+
+    // A foam earplug in use as well: the pair is judged worn together (hand-worked: higher NRR 33, 100 − (33 − 7)/2 − 5 = 82, acceptable).
+    const base = `/api${organizationBase(page)}`;
+    const plug = (await callApi(page, 'POST', `${base}/hearing-protectors`, { name: 'Test foam plug E2E', type: 'formable-earplug', nrr: 33 })).id;
+    // Made through the API: reload so the page's protector list has it, and type the level again.
+    await page.reload();
+    await panel.getByLabel('Add a protector in use').selectOption({ label: 'Test foam plug E2E' });
+    await panel.getByRole('button', { name: 'Add to group' }).click();
+    await panel.getByRole('radio', { name: 'A level I type in' }).check();
+    await panel.getByLabel('LA, dB(A)').fill('100');
+    await panel.getByRole('button', { name: 'Work out' }).click();
+    await panel.getByText('Level typed in: LA 100 dB(A).').waitFor();
+    const together = panel.getByRole('table', { name: /worn together/ });
+    const dual = together.getByRole('row').filter({ hasText: 'OSHA dual, 50 % derated' });
+    await expect.poll(() => dual.innerText()).toMatch(/82\.0 dB\(A\)\s+Acceptable/);
+    expect(await together.getByRole('rowgroup').last().innerText()).toContain('Test foam plug E2E + Test earmuff E2E');
+    expect(plug).toBeGreaterThan(0);
+    await screenshot(page, 'hearing-protectors-worn-together');
+    // The verdict tables and level form have no serious or critical accessibility violations (axe-core).
     expect(severe((await axeScan(page)).violations)).toEqual([]);
     assertClean();
     await context.close();

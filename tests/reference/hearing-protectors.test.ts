@@ -8,7 +8,7 @@ import {
   nioshLevelAtEar,
   oshaAppendixBLevelAtEar,
   oshaDeratedLevelAtEar,
-  oshaDualProtectionNrr,
+  oshaDualLevelAtEar,
   protectionVerdict,
   ratingWarnings,
 } from '@stats/index';
@@ -36,8 +36,18 @@ describe('OSHA 29 CFR 1910.95 Appendix B (NRR − 7) and the 50 % derating', () 
     close(oshaDeratedLevelAtEar({ laDb: 100, lcDb: 104 }, 29).levelAtEarDb, 104 - 14.5);
   });
 
-  it('plug + muff are credited the higher NRR + 5 dB (OSHA Technical Manual, from memory): 29 and 25 → 34', () => {
-    expect(oshaDualProtectionNrr(29, 25)).toBe(34);
+  it('plug + muff: the higher-rated protector’s estimate less 5 dB, the 5 dB added after derating (OSHA Technical Manual, from memory; hand-worked)', () => {
+    const noise = { laDb: 100, lcDb: null };
+    // Derated: 100 − (29 − 7) × 50 % − 5 = 84; without derating: 100 − (29 − 7) − 5 = 73. The order of plug and muff does not matter.
+    expect(oshaDualLevelAtEar(noise, 29, 25, { derated: true }).levelAtEarDb).toBeCloseTo(84, 12);
+    expect(oshaDualLevelAtEar(noise, 25, 29, { derated: true }).levelAtEarDb).toBeCloseTo(84, 12);
+    const full = oshaDualLevelAtEar(noise, 29, 25, { derated: false });
+    expect(full).toMatchObject({ method: 'osha-dual-appendix-b', attenuationDb: 27 });
+    expect(full.levelAtEarDb).toBeCloseTo(73, 12);
+    expect(full.working).toBe('higher NRR 29 (of 29 and 25): 100.0 dB(A) − (29 − 7) − 5 = 73.0 dB(A)');
+    // With the C-weighted level: LC − NRR/2 − 5 = 102 − 14.5 − 5 = 82.5.
+    expect(oshaDualLevelAtEar({ laDb: 100, lcDb: 102 }, 29, 25, { derated: true }).levelAtEarDb).toBeCloseTo(82.5, 12);
+    expect(() => oshaDualLevelAtEar(noise, 29, 60, { derated: true })).toThrow(/oshaDualLevelAtEar/);
   });
 
   it('refuses an NRR outside 0–45 dB and a level that is not a number, naming the function', () => {

@@ -13,7 +13,7 @@ import { shiftResults } from '@schema/shift-results';
 import { assessGroup } from '@stats/assess-group';
 import { en458HmlLevelAtEar, en458SnrLevelAtEar, protectionVerdict, type ProtectionBands, type ProtectionVerdict } from '@stats/hearing-protector-en458';
 import { nioshLevelAtEar } from '@stats/hearing-protector-niosh';
-import { oshaAppendixBLevelAtEar, oshaDeratedLevelAtEar } from '@stats/hearing-protector-osha';
+import { oshaAppendixBLevelAtEar, oshaDeratedLevelAtEar, oshaDualLevelAtEar } from '@stats/hearing-protector-osha';
 import { ratingWarnings, type LevelAtEar, type NoiseAtWorkplace } from '@stats/hearing-protector-types';
 import { nioshRel, oshaHc, oshaPel, twaFromDose } from '@stats/noise-criteria';
 import type { Clock } from '../clock';
@@ -263,6 +263,8 @@ export interface ProtectorAdequacy {
   level: { source: 'p95' | 'typed'; laDb: number; lcDb: number | null; assumedCMinusADb: number; statement: string };
   bands: ProtectionBands & { statement: string; source: string };
   protectors: Array<{ protector: HearingProtectorView; estimates: ProtectorEstimate[] }>;
+  /** Each earplug × earmuff pair in use, as if worn together (dual protection). */
+  combinations: Array<{ plug: HearingProtectorView; muff: HearingProtectorView; estimates: ProtectorEstimate[] }>;
   cautions: string[];
 }
 
@@ -381,6 +383,26 @@ function estimatesFor(protector: HearingProtector, noise: NoiseAtWorkplace, assu
 }
 
 /**
+ * Earplug and earmuff worn together: the OSHA Technical Manual's rule (higher-rated protector's
+ * estimate less 5 dB) with and without the 50 % derating. NIOSH 98-126 and EN 458 give no rule for
+ * combining two ratings here, so they say so instead of guessing (a rating measured on the combination
+ * is the way).
+ */
+function dualEstimatesFor(plug: HearingProtector, muff: HearingProtector, noise: NoiseAtWorkplace, bands: ProtectionBands): ProtectorEstimate[] {
+  const judged = (estimate: LevelAtEar): ProtectorEstimate => ({ ...estimate, verdict: protectionVerdict(estimate.levelAtEarDb, bands), unavailable: null });
+  const noRule = 'No rule for combining two protectors’ ratings in this method: use a rating measured on the combination';
+  const osha =
+    plug.nrr !== null && muff.nrr !== null
+      ? [judged(oshaDualLevelAtEar(noise, plug.nrr, muff.nrr, { derated: true })), judged(oshaDualLevelAtEar(noise, plug.nrr, muff.nrr, { derated: false }))]
+      : [{ method: 'osha-dual-derated', source: 'OSHA Technical Manual, Section III Chapter 5 (dual protection)', unavailable: 'Both protectors need an NRR' }];
+  return [
+    ...osha,
+    { method: 'niosh-derated', source: 'NIOSH 1998 (Publ. 98-126) type-based derating', unavailable: noRule },
+    { method: 'en458-snr', source: 'EN 458:2016', unavailable: noRule },
+  ];
+}
+
+/**
  * For each protector a noise group uses, the level at the ear by each method that its ratings allow,
  * each with its source, formula and verdict. 422 when the group is not a noise group or its
  * 95th percentile cannot be estimated (then a typed level is the way).
@@ -398,6 +420,13 @@ export function groupProtectorAdequacy(db: Db, clock: Clock, organizationId: num
     level,
     bands,
     protectors: protectors.map((protector) => ({ protector, estimates: estimatesFor({ ...protector, organizationId }, noise, level.assumedCMinusADb, bands) })),
+    combinations: protectors
+      .filter((plug) => plug.type !== 'earmuff')
+      .flatMap((plug) =>
+        protectors
+          .filter((muff) => muff.type === 'earmuff')
+          .map((muff) => ({ plug, muff, estimates: dualEstimatesFor({ ...plug, organizationId }, { ...muff, organizationId }, noise, bands) })),
+      ),
     cautions: [...PROTECTOR_CAUTIONS],
   };
 }

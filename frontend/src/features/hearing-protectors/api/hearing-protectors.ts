@@ -103,6 +103,8 @@ export interface ProtectorAdequacy {
   level: { source: 'p95' | 'typed'; laDb: number; lcDb: number | null; assumedCMinusADb: number; statement: string };
   bands: { actionLevelDb: number; statement: string; source: string };
   protectors: Array<{ protector: HearingProtectorView; estimates: ProtectorEstimate[] }>;
+  /** Each earplug × earmuff pair in use, as if worn together. */
+  combinations: Array<{ plug: HearingProtectorView; muff: HearingProtectorView; estimates: ProtectorEstimate[] }>;
   cautions: string[];
 }
 

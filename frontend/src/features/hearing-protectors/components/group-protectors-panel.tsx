@@ -1,9 +1,16 @@
-import { useState, type FormEvent } from 'react';
+import { useState, type FormEvent, type ReactNode } from 'react';
 import { Button } from '@frontend/components/button';
 import { SelectField, TextField } from '@frontend/components/form-field';
 import { Notice } from '@frontend/components/notice';
 import { isApiError } from '@frontend/lib/api-client';
-import { useAddGroupProtector, useHearingProtectors, useProtectorAdequacy, useRemoveGroupProtector, type ProtectorAdequacy } from '../api/hearing-protectors';
+import {
+  useAddGroupProtector,
+  useHearingProtectors,
+  useProtectorAdequacy,
+  useRemoveGroupProtector,
+  type ProtectorAdequacy,
+  type ProtectorEstimate,
+} from '../api/hearing-protectors';
 import { methodLabels, VerdictBadge } from './verdict-text';
 
 /**
@@ -146,73 +153,61 @@ function AdequacyTable({
       {data.protectors.length === 0 ? (
         <p className="text-sm text-slate-600">No protectors are recorded as in use in this group.</p>
       ) : (
-        <div className="card overflow-x-auto">
-          <table className="table-dense w-full">
-            <caption className="sr-only">Level at the ear by protector and method</caption>
-            <thead>
-              <tr>
-                <th scope="col">Protector</th>
-                <th scope="col">Method</th>
-                <th scope="col">Level at the ear</th>
-                <th scope="col">Verdict</th>
-                <th scope="col">Working and source</th>
-              </tr>
-            </thead>
-            <tbody>
-              {data.protectors.flatMap(({ protector, estimates }) =>
-                estimates.map((estimate, position) => (
-                  <tr key={`${protector.id}-${estimate.method}`}>
-                    {position === 0 && (
-                      <th scope="rowgroup" rowSpan={estimates.length} className="align-top text-left font-medium">
-                        {protector.name}
-                        {canEdit && (
-                          <div>
-                            <Button
-                              size="sm"
-                              className="mt-1"
-                              onClick={async () => {
-                                onProblem(null);
-                                try {
-                                  await remove.mutateAsync(protector.id);
-                                } catch (failure) {
-                                  onProblem(isApiError(failure) ? failure.message : 'The protector could not be taken off.');
-                                }
-                              }}
-                            >
-                              Take off group
-                            </Button>
-                          </div>
-                        )}
-                      </th>
-                    )}
-                    <td>{methodLabels[estimate.method] ?? estimate.method}</td>
-                    {estimate.unavailable === null ? (
-                      <>
-                        <td className="tabular-nums">{estimate.levelAtEarDb.toFixed(1)} dB(A)</td>
-                        <td>
-                          <VerdictBadge verdict={estimate.verdict} />
-                        </td>
-                        <td className="text-xs text-slate-700">
-                          <p>{estimate.working}</p>
-                          {estimate.assumptions.map((assumption) => (
-                            <p key={assumption} className="text-amber-900">
-                              {assumption}
-                            </p>
-                          ))}
-                          <p className="text-slate-500">{estimate.source}</p>
-                        </td>
-                      </>
-                    ) : (
-                      <td colSpan={3} className="text-xs text-slate-600">
-                        Not available: {estimate.unavailable}
-                      </td>
-                    )}
-                  </tr>
-                )),
-              )}
-            </tbody>
-          </table>
-        </div>
+        <EstimatesTable
+          caption="Level at the ear by protector and method"
+          headerLabel="Protector"
+          rows={data.protectors.map(({ protector, estimates }) => ({
+            key: String(protector.id),
+            estimates,
+            header: (
+              <>
+                {protector.name}
+                {canEdit && (
+                  <div>
+                    <Button
+                      size="sm"
+                      className="mt-1"
+                      onClick={async () => {
+                        onProblem(null);
+                        try {
+                          await remove.mutateAsync(protector.id);
+                        } catch (failure) {
+                          onProblem(isApiError(failure) ? failure.message : 'The protector could not be taken off.');
+                        }
+                      }}
+                    >
+                      Take off group
+                    </Button>
+                  </div>
+                )}
+              </>
+            ),
+          }))}
+        />
+      )}
+      {data.combinations.length > 0 && (
+        <section aria-labelledby="dual-protection-title" className="space-y-2">
+          <h3 id="dual-protection-title" className="text-sm font-semibold">
+            Earplug and earmuff worn together
+          </h3>
+          <p className="text-xs text-slate-600">
+            Two protectors together give far less than the sum of their ratings: the OSHA rule credits only 5 dB more than the better of the two. Use it where
+            the level is too high for one protector alone.
+          </p>
+          <EstimatesTable
+            caption="Level at the ear with an earplug and an earmuff worn together, by method"
+            headerLabel="Worn together"
+            rows={data.combinations.map(({ plug, muff, estimates }) => ({
+              key: `${plug.id}-${muff.id}`,
+              estimates,
+              header: (
+                <>
+                  {plug.name} <span className="font-normal text-slate-600">+</span> {muff.name}
+                </>
+              ),
+            }))}
+          />
+        </section>
       )}
       <aside aria-label="Hearing protector cautions" className="rounded-md border border-amber-300/80 bg-amber-50/70 px-4 py-3 text-sm text-amber-950">
         <ul className="space-y-1">
@@ -221,6 +216,69 @@ function AdequacyTable({
           ))}
         </ul>
       </aside>
+    </div>
+  );
+}
+
+/** One row group per protector (or pair): each method's level at the ear, verdict, working and source, or why it does not apply. */
+function EstimatesTable({
+  caption,
+  headerLabel,
+  rows,
+}: {
+  caption: string;
+  headerLabel: string;
+  rows: Array<{ key: string; header: ReactNode; estimates: ProtectorEstimate[] }>;
+}) {
+  return (
+    <div className="card overflow-x-auto">
+      <table className="table-dense w-full">
+        <caption className="sr-only">{caption}</caption>
+        <thead>
+          <tr>
+            <th scope="col">{headerLabel}</th>
+            <th scope="col">Method</th>
+            <th scope="col">Level at the ear</th>
+            <th scope="col">Verdict</th>
+            <th scope="col">Working and source</th>
+          </tr>
+        </thead>
+        <tbody>
+          {rows.flatMap(({ key, header, estimates }) =>
+            estimates.map((estimate, position) => (
+              <tr key={`${key}-${estimate.method}`}>
+                {position === 0 && (
+                  <th scope="rowgroup" rowSpan={estimates.length} className="align-top text-left font-medium">
+                    {header}
+                  </th>
+                )}
+                <td>{methodLabels[estimate.method] ?? estimate.method}</td>
+                {estimate.unavailable === null ? (
+                  <>
+                    <td className="tabular-nums">{estimate.levelAtEarDb.toFixed(1)} dB(A)</td>
+                    <td>
+                      <VerdictBadge verdict={estimate.verdict} />
+                    </td>
+                    <td className="text-xs text-slate-700">
+                      <p>{estimate.working}</p>
+                      {estimate.assumptions.map((assumption) => (
+                        <p key={assumption} className="text-amber-900">
+                          {assumption}
+                        </p>
+                      ))}
+                      <p className="text-slate-500">{estimate.source}</p>
+                    </td>
+                  </>
+                ) : (
+                  <td colSpan={3} className="text-xs text-slate-600">
+                    Not available: {estimate.unavailable}
+                  </td>
+                )}
+              </tr>
+            )),
+          )}
+        </tbody>
+      </table>
     </div>
   );
 }

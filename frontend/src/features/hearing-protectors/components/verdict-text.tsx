@@ -27,4 +27,6 @@ export const methodLabels: Record<string, string> = {
   'niosh-derated': 'NIOSH type derating',
   'en458-snr': 'EN 458 SNR',
   'en458-hml': 'EN 458 HML',
+  'osha-dual-derated': 'OSHA dual, 50 % derated',
+  'osha-dual-appendix-b': 'OSHA dual (NRR − 7)',
 };

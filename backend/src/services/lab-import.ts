@@ -26,7 +26,7 @@ import { decodeLabFile, importRejected, parseLabFile, previewOf, type LabFile } 
 import { pageOf, pageWindow, searchCondition } from './list';
 import { sampleMinutes } from './sample-times';
 import { touchGroupResults } from './exposure-groups';
-import { getShiftResultsOfImport, insertShiftResult, type ShiftResultView } from './shift-results';
+import { getShiftResultsOfImport, insertShiftResult, shiftResultWriter, type ShiftResultView } from './shift-results';
 import { conversionBetween, parseUnit } from './units';
 import type { NameAccess } from './workers';
 
@@ -715,6 +715,7 @@ export function commitLabImport(
   db.transaction((tx) => {
     const batch = uploadedBatch(tx, input.organizationId, input.batchId);
     const planned = planImport(tx, clock, batch, input.commit);
+    const writer = shiftResultWriter(tx);
     const created = planned.map(
       (result) =>
         insertShiftResult(
@@ -741,7 +742,7 @@ export function commitLabImport(
             details: result.details,
             importBatchId: batch.id,
           },
-          { touchGroup: false },
+          { touchGroup: false, writer },
         ).id,
     );
     for (const groupId of new Set(planned.map((result) => result.group.id))) touchGroupResults(tx, groupId, now);

@@ -10,7 +10,7 @@ import type { Db } from '../db/client';
 import { Conflict, NotFound, Unprocessable } from '../errors';
 import { saveAuditedChange, audit, fieldError, ownedOrFieldError, sameNameRow, type Actor, type Tx } from './changes';
 import { effectiveOelOf, findExposureGroup, touchGroupResults } from './exposure-groups';
-import { insertShiftResult } from './shift-results';
+import { insertShiftResult, shiftResultWriter } from './shift-results';
 import { isMemberOn } from './workers';
 
 /*
@@ -468,33 +468,41 @@ export function computeMixtureResults(
         at: now,
       });
     }
-    if (plan.replaces.length > 0) touchGroupResults(tx, group.id, now);
+    // One prepared writer for every row; the group's data version moves once for the whole recompute.
+    const writer = shiftResultWriter(tx);
     for (const row of plan.rows) {
       const worker = tx.select().from(workers).where(eq(workers.id, row.workerId)).get()!;
-      insertShiftResult(tx, now, input.actor, {
-        organizationId: input.organizationId,
-        group,
-        worker,
-        agent: mixture,
-        date: row.date,
-        value: row.index,
-        nonDetect: row.nonDetect,
-        detectionLimit: row.nonDetect ? row.index : null,
-        source: 'mixture',
-        details: {
-          statement: row.statement,
-          mixture: {
-            mixtureId: mixture.id,
-            formula: MIXTURE_FORMULA,
-            source: MIXTURE_SOURCE,
-            components: row.components,
-            lowerBound: row.lowerBound,
-            upperBound: row.index,
+      insertShiftResult(
+        tx,
+        now,
+        input.actor,
+        {
+          organizationId: input.organizationId,
+          group,
+          worker,
+          agent: mixture,
+          date: row.date,
+          value: row.index,
+          nonDetect: row.nonDetect,
+          detectionLimit: row.nonDetect ? row.index : null,
+          source: 'mixture',
+          details: {
+            statement: row.statement,
+            mixture: {
+              mixtureId: mixture.id,
+              formula: MIXTURE_FORMULA,
+              source: MIXTURE_SOURCE,
+              components: row.components,
+              lowerBound: row.lowerBound,
+              upperBound: row.index,
+            },
+            flags: row.flags,
           },
-          flags: row.flags,
         },
-      });
+        { touchGroup: false, writer },
+      );
     }
+    if (plan.replaces.length > 0 || plan.rows.length > 0) touchGroupResults(tx, group.id, now);
     return { ...plan, written: plan.rows.length, voided: plan.replaces.length };
   });
 }

@@ -5,6 +5,7 @@ import type { ExposureCategory, Judgement } from '@stats/types';
 import { priorNames, type AssessmentSettings, type EngineVersion, type GroupAssessmentResponse, type PriorName } from './assessment';
 import { calendarDate, id, timestamp, timestamps } from './columns';
 import { exposureGroups } from './exposure-groups';
+import { listQueryBase, queryFlag, queryId, sortParameter } from './list-query';
 import { organizationReference } from './organizations';
 import { users } from './users';
 
@@ -199,6 +200,43 @@ export interface DecisionRecordSummary {
   dataChangedSinceDraft: boolean;
   acknowledgements: number;
 }
+
+/** A record in the organization's register (GET /orgs/:orgId/decision-records): the summary plus its group's site. */
+export interface DecisionRecordListItem extends DecisionRecordSummary {
+  siteId: number;
+  siteName: string;
+}
+
+export const decisionRecordSortFields = [
+  'reviewDate',
+  'approvedAt',
+  'submittedAt',
+  'updatedAt',
+  'exposureGroupName',
+  'siteName',
+  'category',
+  'status',
+] as const;
+
+/**
+ * GET /orgs/:orgId/decision-records — the register of every record of an organization.
+ * `q` searches the exposure group name and the site name. `outOfDate=true`: approved records whose
+ * group's results changed since. `reviewBy=YYYY-MM-DD`: approved records due for review on or before
+ * that date. Category comes as text ("0"…"4"): a coerced number would read an empty value as 0.
+ */
+export const decisionRecordListQuery = listQueryBase.extend({
+  sort: sortParameter(decisionRecordSortFields, '-updatedAt'),
+  status: z.enum(decisionStatuses, { message: `Use one of ${decisionStatuses.join(', ')}` }).optional(),
+  category: z
+    .enum(['0', '1', '2', '3', '4'], { message: 'Use a category from 0 to 4' })
+    .transform((value) => Number(value) as ExposureCategory)
+    .optional(),
+  judgement: z.enum(judgements, { message: `Use one of ${judgements.join(', ')}` }).optional(),
+  siteId: queryId.optional(),
+  outOfDate: queryFlag.optional(),
+  reviewBy: calendarDate.optional(),
+});
+export type DecisionRecordListQuery = z.infer<typeof decisionRecordListQuery>;
 
 /** The full record (GET …/decision-records/:recordId). */
 export interface DecisionRecordView extends DecisionRecordSummary {

@@ -138,6 +138,7 @@ describe('inviting someone', () => {
     expect(await navigationItems(invitee.page)).toEqual([
       'Overview',
       'Exposure groups',
+      'Decision records',
       'Workers',
       'Sites',
       'Agents & OELs',

@@ -8,7 +8,7 @@ const app = useE2eApp();
 
 // The sidebar of each role (schema/permissions.ts, app/navigation.ts): pages every member reads,
 // the import for roles that change data, settings and people for admins.
-const readingPages = ['Overview', 'Exposure groups', 'Workers', 'Sites', 'Agents & OELs', 'Hearing protectors'];
+const readingPages = ['Overview', 'Exposure groups', 'Decision records', 'Workers', 'Sites', 'Agents & OELs', 'Hearing protectors'];
 const navigationOf = {
   admin: [...readingPages, 'Import results', 'Noise logs', 'Noise settings', 'People', 'Audit trail', 'Outbox'],
   hygienist: [...readingPages, 'Import results', 'Noise logs'],

@@ -1,13 +1,14 @@
 import { z } from 'zod';
 import { assessmentQuery } from '@schema/assessment';
 import { idParam } from '@schema/columns';
-import { decisionCommentCreate, decisionDraftCreate, decisionDraftUpdate, decisionReturn } from '@schema/decision-records';
+import { decisionCommentCreate, decisionDraftCreate, decisionDraftUpdate, decisionRecordListQuery, decisionReturn } from '@schema/decision-records';
 import {
   acknowledgeDecision,
   approveDecisionDraft,
   commentOnDecision,
   createDecisionDraft,
   getDecisionRecord,
+  listDecisionRecords,
   listGroupDecisions,
   proposeDecision,
   resubmitDecisionDraft,
@@ -25,6 +26,16 @@ const recordPath = '/orgs/:orgId/decision-records/:recordId';
 
 /** Decision records (issue 7): draft, review (approve / return), resubmit, acknowledge, comment, history. */
 export const decisionRecordRoutes = [
+  orgRoute({
+    method: 'get',
+    path: '/orgs/:orgId/decision-records',
+    permission: 'org:read',
+    summary: 'Every decision record of the organization: search, status, category, judgement, site, out-of-date and review-by filters, sort, page',
+    handler: ({ req, res, deps, organization }) => {
+      const query = parseQuery(decisionRecordListQuery, req.query);
+      res.json(listDecisionRecords(deps.db, organization.id, query));
+    },
+  }),
   orgRoute({
     method: 'get',
     path: groupPath,

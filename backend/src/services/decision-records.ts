@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, ne } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gt, inArray, isNotNull, lte, ne, not, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import type { PriorName } from '@schema/assessment';
 import {
@@ -11,6 +11,8 @@ import {
   type DecisionExclusion,
   type DecisionPerson,
   type DecisionProposal,
+  type DecisionRecordListItem,
+  type DecisionRecordListQuery,
   type DecisionRecordRow,
   type DecisionRecordSummary,
   type DecisionRecordView,
@@ -19,7 +21,9 @@ import {
   type GroupDecisions,
 } from '@schema/decision-records';
 import { exposureGroups } from '@schema/exposure-groups';
+import type { ListPage } from '@schema/list-query';
 import { organizations, organizationSettings } from '@schema/organizations';
+import { sites } from '@schema/sites';
 import { users } from '@schema/users';
 import { en689ReassessmentMonths } from '@stats/en689';
 import type { ExposureCategory } from '@stats/types';
@@ -31,6 +35,7 @@ import { getGroupAssessment, type AssessmentEngine } from './assessment';
 import { audit, changedFields, fieldError, type Tx } from './changes';
 import { findExposureGroup } from './exposure-groups';
 import { today } from './dates';
+import { orderBy, pageOf, pageWindow, searchCondition } from './list';
 
 /*
  * The decision-record workflow (issue 7, PRODUCT.md capability 6 and roles):
@@ -461,21 +466,50 @@ export function commentOnDecision(db: Db, clock: Clock, input: { organizationId:
 const drafters = alias(users, 'drafters');
 const approvers = alias(users, 'approvers');
 
-/** Summary rows with names and out-of-date flags, for one group or a whole organization. */
-export function decisionSummaries(db: Tx, organizationId: number, filter: { groupId?: number; limit?: number }): DecisionRecordSummary[] {
-  const query = db
+/** The record columns a summary needs (not the frozen inputs and figures, which lists never show). */
+const summaryRecordColumns = {
+  id: decisionRecords.id,
+  exposureGroupId: decisionRecords.exposureGroupId,
+  status: decisionRecords.status,
+  category: decisionRecords.category,
+  judgement: decisionRecords.judgement,
+  reviewDate: decisionRecords.reviewDate,
+  draftedByUserId: decisionRecords.draftedByUserId,
+  approvedByUserId: decisionRecords.approvedByUserId,
+  submittedAt: decisionRecords.submittedAt,
+  approvedAt: decisionRecords.approvedAt,
+  returnedAt: decisionRecords.returnedAt,
+  dataVersionAtDraft: decisionRecords.dataVersionAtDraft,
+  dataVersionAtApproval: decisionRecords.dataVersionAtApproval,
+};
+type SummaryRecord = Pick<DecisionRecordRow, keyof typeof summaryRecordColumns>;
+
+/**
+ * Records with their group, site, people and acknowledgement count in one query (the count is a
+ * correlated subquery on the acknowledgements' record index, so a page costs no query per row).
+ */
+function selectSummaryRows(db: Tx) {
+  return db
     .select({
-      record: decisionRecords,
+      record: summaryRecordColumns,
       groupName: exposureGroups.name,
       groupDataVersion: exposureGroups.dataVersion,
+      siteId: sites.id,
+      siteName: sites.name,
       drafterName: drafters.name,
       approverName: approvers.name,
       acknowledgements: db.$count(decisionAcknowledgements, eq(decisionAcknowledgements.decisionRecordId, decisionRecords.id)),
     })
     .from(decisionRecords)
     .innerJoin(exposureGroups, eq(exposureGroups.id, decisionRecords.exposureGroupId))
+    .innerJoin(sites, eq(sites.id, exposureGroups.siteId))
     .innerJoin(drafters, eq(drafters.id, decisionRecords.draftedByUserId))
-    .leftJoin(approvers, eq(approvers.id, decisionRecords.approvedByUserId))
+    .leftJoin(approvers, eq(approvers.id, decisionRecords.approvedByUserId));
+}
+
+/** Summary rows with names and out-of-date flags, for one group or a whole organization. */
+export function decisionSummaries(db: Tx, organizationId: number, filter: { groupId?: number; limit?: number }): DecisionRecordSummary[] {
+  const query = selectSummaryRows(db)
     .where(
       filter.groupId === undefined
         ? eq(decisionRecords.organizationId, organizationId)
@@ -486,8 +520,72 @@ export function decisionSummaries(db: Tx, organizationId: number, filter: { grou
   return rows.map((row) => summaryOf(row.record, row.groupName, row.groupDataVersion, row.drafterName, row.approverName, row.acknowledgements));
 }
 
+/** Approved, and the group's results changed since (the same rule as `outOfDate` in summaryOf). */
+const outOfDateCondition = and(
+  eq(decisionRecords.status, 'approved'),
+  isNotNull(decisionRecords.dataVersionAtApproval),
+  gt(exposureGroups.dataVersion, decisionRecords.dataVersionAtApproval),
+)!;
+
+function registerCondition(organizationId: number, query: DecisionRecordListQuery): SQL | undefined {
+  return and(
+    eq(decisionRecords.organizationId, organizationId),
+    query.status ? eq(decisionRecords.status, query.status) : undefined,
+    query.category === undefined ? undefined : eq(decisionRecords.category, query.category),
+    query.judgement ? eq(decisionRecords.judgement, query.judgement) : undefined,
+    query.siteId ? eq(exposureGroups.siteId, query.siteId) : undefined,
+    query.outOfDate === undefined ? undefined : query.outOfDate ? outOfDateCondition : not(outOfDateCondition),
+    query.reviewBy ? and(eq(decisionRecords.status, 'approved'), lte(decisionRecords.reviewDate, query.reviewBy)) : undefined,
+    searchCondition(query.q, [exposureGroups.name, sites.name]),
+  );
+}
+
+/**
+ * The organization's register of decision records: filtered, sorted and paged on the server
+ * (services/list.ts), one query for the page and one for the total.
+ */
+export function listDecisionRecords(db: Tx, organizationId: number, query: DecisionRecordListQuery): ListPage<DecisionRecordListItem> {
+  const where = registerCondition(organizationId, query);
+  const total =
+    db
+      .select({ total: count() })
+      .from(decisionRecords)
+      .innerJoin(exposureGroups, eq(exposureGroups.id, decisionRecords.exposureGroupId))
+      .innerJoin(sites, eq(sites.id, exposureGroups.siteId))
+      .where(where)
+      .get()?.total ?? 0;
+  const { limit, offset } = pageWindow(query.page, query.pageSize);
+  const rows = selectSummaryRows(db)
+    .where(where)
+    .orderBy(
+      ...orderBy(
+        query.sort,
+        {
+          reviewDate: decisionRecords.reviewDate,
+          approvedAt: decisionRecords.approvedAt,
+          submittedAt: decisionRecords.submittedAt,
+          updatedAt: decisionRecords.updatedAt,
+          exposureGroupName: exposureGroups.name,
+          siteName: sites.name,
+          category: decisionRecords.category,
+          status: decisionRecords.status,
+        },
+        decisionRecords.id,
+      ),
+    )
+    .limit(limit)
+    .offset(offset)
+    .all();
+  const items = rows.map((row) => ({
+    ...summaryOf(row.record, row.groupName, row.groupDataVersion, row.drafterName, row.approverName, row.acknowledgements),
+    siteId: row.siteId,
+    siteName: row.siteName,
+  }));
+  return pageOf(items, total, query.page, query.pageSize);
+}
+
 function summaryOf(
-  record: DecisionRecordRow,
+  record: SummaryRecord,
   groupName: string,
   groupDataVersion: number,
   drafterName: string,

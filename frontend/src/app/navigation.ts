@@ -8,6 +8,7 @@ import { can, type Permission, type Role } from '@schema/permissions';
 export const organizationPages = [
   { path: '', label: 'Overview', permission: 'org:read' },
   { path: '/exposure-groups', label: 'Exposure groups', permission: 'org:read' },
+  { path: '/decision-records', label: 'Decision records', permission: 'org:read' },
   { path: '/workers', label: 'Workers', permission: 'org:read' },
   { path: '/sites', label: 'Sites', permission: 'org:read' },
   { path: '/agents', label: 'Agents & OELs', permission: 'org:read' },

@@ -61,6 +61,7 @@ export const router = createBrowserRouter([
                   { path: 'exposure-groups/:groupId/edit', lazy: () => import('./routes/exposure-group-edit') },
                   { path: 'exposure-groups/:groupId/decisions', lazy: () => import('./routes/group-decisions') },
                   { path: 'exposure-groups/:groupId/decisions/new', lazy: () => import('./routes/decision-draft-new') },
+                  { path: 'decision-records', lazy: () => import('./routes/decision-records') },
                   { path: 'decision-records/:recordId', lazy: () => import('./routes/decision-record') },
                   { path: 'exposure-groups/:groupId/assessment', lazy: () => import('./routes/group-assessment') },
                   { path: 'exposure-groups/:groupId/noise-estimates', lazy: () => import('./routes/group-noise-estimates') },

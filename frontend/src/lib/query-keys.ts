@@ -21,3 +21,9 @@ export const orgKeys = {
   dashboard: (organizationId: string) => ['orgs', organizationId, 'dashboard'] as const,
   noiseEstimates: (organizationId: string) => ['orgs', organizationId, 'noise-estimates'] as const,
 };
+
+/**
+ * What a change to shift results makes stale: the result lists, the groups (counts, data version), the
+ * plans' progress, and the decision records and dashboard (their "out of date" marks).
+ */
+export const resultChangeKeys = [orgKeys.shiftResults, orgKeys.exposureGroups, orgKeys.samplingPlans, orgKeys.decisionRecords, orgKeys.dashboard] as const;

@@ -134,9 +134,14 @@ function DashboardSections({ organizationId, dashboard }: { organizationId: stri
         <SamplingProgress dashboard={data} />
       </section>
       <section aria-labelledby="recent-title">
-        <h2 id="recent-title" className="mb-2 text-base">
-          Recent decisions
-        </h2>
+        <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
+          <h2 id="recent-title" className="text-base">
+            Recent decisions
+          </h2>
+          <Link to={`/orgs/${encodeURIComponent(organizationId)}/decision-records`} className="text-sm">
+            All decision records
+          </Link>
+        </div>
         {data.recentDecisions.length === 0 ? (
           <EmptyState title="No decision records yet" />
         ) : (

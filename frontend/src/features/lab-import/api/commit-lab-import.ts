@@ -2,7 +2,7 @@ import type { LabImportCommit } from '@schema/lab-imports';
 import { api, apiPath } from '@frontend/lib/api-client';
 import type { ShiftResultView } from '@frontend/lib/api-types';
 import { useOrganizationMutation } from '@frontend/lib/org-mutation';
-import { orgKeys } from '@frontend/lib/query-keys';
+import { orgKeys, resultChangeKeys } from '@frontend/lib/query-keys';
 import type { ImportBatchSummary } from './types';
 
 export interface LabImportCommitted {
@@ -22,6 +22,6 @@ export function useCommitLabImport(organizationId: string) {
   return useOrganizationMutation(
     organizationId,
     ({ batchId, commit }: { batchId: number; commit: LabImportCommit }) => commitLabImport(organizationId, batchId, commit),
-    [orgKeys.labImports, orgKeys.shiftResults, orgKeys.exposureGroups, orgKeys.samplingPlans],
+    [orgKeys.labImports, ...resultChangeKeys],
   );
 }

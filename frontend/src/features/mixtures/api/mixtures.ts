@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { MixtureCreate, MixtureUpdate } from '@schema/mixtures';
 import { api, apiPath } from '@frontend/lib/api-client';
 import { setArchived, useOrganizationMutation } from '@frontend/lib/org-mutation';
-import { orgKeys } from '@frontend/lib/query-keys';
+import { orgKeys, resultChangeKeys } from '@frontend/lib/query-keys';
 
 /* Mixtures of agents with similar effects, and the mixture index results of a mixture group. */
 
@@ -92,6 +92,6 @@ export function useComputeMixtureResults(organizationId: string, groupId: number
   return useOrganizationMutation(
     organizationId,
     () => api.post<MixturePlan & { written: number; voided: number }>(`${base(organizationId)}/exposure-groups/${groupId}/mixture-results`, {}),
-    [mixtureKeys, orgKeys.shiftResults, orgKeys.exposureGroups, orgKeys.summary],
+    [mixtureKeys, ...resultChangeKeys, orgKeys.summary],
   );
 }

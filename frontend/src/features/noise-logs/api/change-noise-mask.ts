@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, apiPath } from '@frontend/lib/api-client';
-import { orgKeys } from '@frontend/lib/query-keys';
+import { resultChangeKeys } from '@frontend/lib/query-keys';
 import { noiseKeys } from './get-noise-logs';
 import type { NoiseLogDetail } from './types';
 
@@ -27,8 +27,7 @@ export function useChangeNoiseMask(organizationId: string, logId: string) {
       client.setQueryData(noiseKeys.detail(organizationId, logId), log);
       void client.invalidateQueries({ queryKey: [...noiseKeys.all(organizationId), 'list'] });
       if (log.status === 'accepted') {
-        void client.invalidateQueries({ queryKey: orgKeys.shiftResults(organizationId) });
-        void client.invalidateQueries({ queryKey: orgKeys.exposureGroups(organizationId) });
+        for (const key of resultChangeKeys) void client.invalidateQueries({ queryKey: key(organizationId) });
       }
     },
   });

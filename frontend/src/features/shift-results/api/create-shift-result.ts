@@ -2,10 +2,10 @@ import type { ShiftResultCreate } from '@schema/shift-results';
 import { api, apiPath } from '@frontend/lib/api-client';
 import type { ShiftResultView } from '@frontend/lib/api-types';
 import { useOrganizationMutation } from '@frontend/lib/org-mutation';
-import { orgKeys } from '@frontend/lib/query-keys';
+import { resultChangeKeys } from '@frontend/lib/query-keys';
 
-/** A result changes the group's counts, its plan's progress and the result lists. */
-export const resultTouches = [orgKeys.shiftResults, orgKeys.exposureGroups, orgKeys.samplingPlans];
+/** A result changes the group's counts, its plan's progress, the result lists and the out-of-date marks. */
+export const resultTouches = resultChangeKeys;
 
 /**
  * POST /api/orgs/:orgId/shift-results → 201. 400 names the field (not a member on that date, a

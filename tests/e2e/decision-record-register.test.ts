@@ -55,6 +55,20 @@ describe('the decision-record register', () => {
     await expect.poll(() => outOfDateOnly.isChecked()).toBe(false);
     await rows.filter({ hasText: 'Saw filer – noise' }).waitFor();
 
+    // Review due by the edger's review date: the edger's record (reviewed first, category 4) and not the saw filer's.
+    const organizationPath = /^(.*\/orgs\/[^/]+)/.exec(new URL(page.url()).pathname)![1];
+    const register = (await page.evaluate(async (path) => (await fetch(path)).json(), `/api${organizationPath}/decision-records?status=approved`)) as {
+      items: Array<{ exposureGroupName: string; reviewDate: string }>;
+    };
+    const edgerReview = register.items.find((item) => item.exposureGroupName === 'Edger operator – noise')!.reviewDate;
+    await page.getByLabel('Review due by').fill(edgerReview);
+    await page.waitForURL((url) => url.searchParams.get('reviewBy') === edgerReview);
+    await expect.poll(() => rows.count()).toBe(1);
+    expect(await rows.first().textContent()).toContain('Edger operator – noise');
+    await page.getByLabel('Review due by').fill('');
+    await page.waitForURL((url) => !url.searchParams.has('reviewBy'));
+    await expect.poll(() => rows.count()).toBe(2);
+
     await sawFiler.getByRole('link', { name: 'Saw filer – noise' }).click();
     await page.waitForURL(/\/decision-records\/\d+$/);
     await page.getByRole('heading', { level: 1, name: 'Saw filer – noise' }).waitFor();

@@ -5,7 +5,7 @@ import { decisionRegisterFilters, DecisionRegisterTable } from '@frontend/featur
 import { useSiteChoices } from '@frontend/features/sites/api/get-sites';
 import { exposureCategories } from '@frontend/components/category-badge';
 import { DocumentTitle } from '@frontend/components/document-title';
-import { CheckboxField } from '@frontend/components/form-field';
+import { CheckboxField, TextField } from '@frontend/components/form-field';
 import { FilterSelect, ListToolbar } from '@frontend/components/list-filters';
 import { PageHeader } from '@frontend/components/page-header';
 import { QueryState } from '@frontend/components/query-state';
@@ -45,6 +45,14 @@ export function Component() {
             name="siteId"
             label="Site"
             options={[{ value: '', label: 'Every site' }, ...(sites.data?.items ?? []).map((site) => ({ value: String(site.id), label: site.name }))]}
+          />
+          <TextField
+            type="date"
+            label="Review due by"
+            hint="Approved records only"
+            className="w-44"
+            value={params.filter('reviewBy') ?? ''}
+            onChange={(event) => params.update({ reviewBy: event.target.value || undefined })}
           />
           <CheckboxField
             label="Out of date only"

@@ -13,7 +13,7 @@ import { DecisionJudgement, DecisionStatusBadge, OutOfDateMarker } from './decis
 const column = createColumnHelper<ListTableFeatures, DecisionRecordListItem>();
 
 /** The filters of the register page, so an empty page can say whether they hid every record. */
-export const decisionRegisterFilters = ['status', 'category', 'judgement', 'siteId', 'outOfDate'] as const;
+export const decisionRegisterFilters = ['status', 'category', 'judgement', 'siteId', 'outOfDate', 'reviewBy'] as const;
 
 /** Every decision record of an organization, sorted and paged by the server; the group name opens the record. */
 export function DecisionRegisterTable({

@@ -49,7 +49,7 @@ export function Component() {
           <TextField
             type="date"
             label="Review due by"
-            hint="Approved records only"
+            title="Approved records whose review date is on or before this day"
             className="w-44"
             value={params.filter('reviewBy') ?? ''}
             onChange={(event) => params.update({ reviewBy: event.target.value || undefined })}

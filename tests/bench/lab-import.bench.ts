@@ -7,24 +7,9 @@
  * took a first 3,000-row commit from 2.26 s to 1.2–1.3 s (single cold runs, 2026-12-02, the machine in
  * docs/benchmarks.md). The 20,000-row file is the largest the upload accepts.
  */
+import { singleSampleCommit, singleSampleLabFile } from '../helpers/lab-files';
 import { createTestContext, type SignedIn } from '../helpers/test-app';
 import { loadNote, type BenchRow } from './types';
-
-const commitBody = {
-  mapping: {
-    workerCode: 'Worker',
-    date: 'Date',
-    group: 'Group',
-    agent: 'Analyte',
-    value: 'Result',
-    unit: 'Units',
-    sampleId: 'Sample ID',
-    lab: 'Lab',
-    detectionLimit: null,
-    startTime: null,
-    endTime: null,
-  },
-};
 
 /** A new group, its ten members, and an uploaded (not yet committed) file of `rows` results for it; answers the batch id. */
 async function uploadBatch(client: SignedIn, base: string, name: string, rows: number): Promise<number> {
@@ -42,24 +27,25 @@ async function uploadBatch(client: SignedIn, base: string, name: string, rows: n
   if (group.status !== 201) throw new Error(`lab-import bench: group answered ${group.status}: ${JSON.stringify(group.body)}`);
   const workers = (await client.get(`${base}/workers?pageSize=10`)).body.items as Array<{ id: number; code: string }>;
   for (const worker of workers) await client.post(`${base}/group-memberships`, { workerId: worker.id, exposureGroupId: group.body.id, fromDate: '2015-01-01' });
-  const lines = ['Worker,Date,Group,Analyte,Result,Units,Sample ID,Lab'];
-  const first = Date.UTC(2016, 0, 1);
-  for (let row = 0; row < rows; row += 1) {
-    const worker = workers[row % workers.length]!;
-    const date = new Date(first + Math.floor(row / workers.length) * 86_400_000).toISOString().slice(0, 10);
-    lines.push(`${worker.code},${date},${name},${agent.name},${(0.05 + (row % 97) / 100).toFixed(2)},mg/m3,${name}-${row},Bench lab`);
-  }
+  const text = singleSampleLabFile({
+    workerCodes: workers.map((worker) => worker.code),
+    groupName: name,
+    agentName: agent.name,
+    rows,
+    samplePrefix: name,
+    lab: 'Bench lab',
+  });
   const uploaded = await client.agent
     .post(`${base}/lab-imports`)
     .set('X-CSRF-Token', client.csrfToken)
-    .attach('file', Buffer.from(lines.join('\n'), 'utf8'), { filename: `${name}.csv`, contentType: 'text/csv' });
+    .attach('file', Buffer.from(text, 'utf8'), { filename: `${name}.csv`, contentType: 'text/csv' });
   if (uploaded.status !== 201) throw new Error(`lab-import bench: upload answered ${uploaded.status}: ${JSON.stringify(uploaded.body).slice(0, 300)}`);
   return uploaded.body.batch.id as number;
 }
 
 async function timedCommit(client: SignedIn, base: string, batchId: number, rows: number): Promise<number> {
   const start = performance.now();
-  const answer = await client.post(`${base}/lab-imports/${batchId}/commit`, commitBody);
+  const answer = await client.post(`${base}/lab-imports/${batchId}/commit`, singleSampleCommit);
   const seconds = (performance.now() - start) / 1000;
   if (answer.status !== 201 || answer.body.batch.resultCount !== rows)
     throw new Error(`lab-import bench: commit answered ${answer.status}: ${JSON.stringify(answer.body).slice(0, 300)}`);

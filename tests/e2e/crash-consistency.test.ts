@@ -14,6 +14,7 @@ import BetterSqlite3 from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { generateNoiseDemoLog } from '@stats/noise-demo';
 import { openHttpSession, type HttpSession } from '../helpers/http-session';
+import { singleSampleCommit, singleSampleLabFile } from '../helpers/lab-files';
 import { demoPassword, demoUsers, startServer, type TestServer } from './harness';
 
 const labRows = 20_000;
@@ -140,36 +141,22 @@ describe('SIGKILL in the middle of a large lab import', () => {
     for (const worker of workers.items) {
       await json(hygienist.post(`${base()}/group-memberships`, { workerId: worker.id, exposureGroupId: group.id, fromDate: '2015-01-01' }), 201);
     }
-    const lines = ['Worker,Date,Group,Analyte,Result,Units,Sample ID,Lab'];
-    const first = Date.UTC(2016, 0, 1);
-    for (let row = 0; row < labRows; row += 1) {
-      const worker = workers.items[row % workers.items.length];
-      const date = new Date(first + Math.floor(row / workers.items.length) * 86_400_000).toISOString().slice(0, 10);
-      lines.push(`${worker.code},${date},${groupName},${agent.name},${(0.05 + (row % 97) / 100).toFixed(2)},mg/m3,C${attempt}-${row},Test lab`);
-    }
+    const text = singleSampleLabFile({
+      workerCodes: workers.items.map((worker) => worker.code),
+      groupName,
+      agentName: agent.name,
+      rows: labRows,
+      samplePrefix: `C${attempt}`,
+      lab: 'Test lab',
+    });
     const uploaded = await json<{ batch: { id: number } }>(
-      hygienist.upload(`${base()}/lab-imports`, { name: `crash-${attempt}.csv`, type: 'text/csv', bytes: Buffer.from(lines.join('\n')) }),
+      hygienist.upload(`${base()}/lab-imports`, { name: `crash-${attempt}.csv`, type: 'text/csv', bytes: Buffer.from(text) }),
       201,
     );
     return uploaded.batch.id;
   }
 
-  const commitBody = {
-    mapping: {
-      workerCode: 'Worker',
-      date: 'Date',
-      group: 'Group',
-      agent: 'Analyte',
-      value: 'Result',
-      unit: 'Units',
-      sampleId: 'Sample ID',
-      lab: 'Lab',
-      detectionLimit: null,
-      startTime: null,
-      endTime: null,
-      minutes: null,
-    },
-  };
+  const commitBody = singleSampleCommit;
 
   /** Results stored for the batch and whether the batch says committed: all or nothing. */
   function batchState(batchId: number): { results: number; committed: boolean } {

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { agents } from './agents';
 import { organizationReference } from './organizations';
 import { timestamp } from './columns';
+import type { ShiftResultDetails } from './shift-results';
 
 /**
  * A mixture of agents an organization marks as having similar (additive) effects. The mixture
@@ -41,3 +42,51 @@ export const mixtureUpdate = mixtureCreate.partial().extend({ archived: z.boolea
 
 export type MixtureCreate = z.infer<typeof mixtureCreate>;
 export type MixtureUpdate = z.infer<typeof mixtureUpdate>;
+
+// ---------------------------------------------------------------- over the wire (backend/src/services/mixtures.ts)
+
+/** A mixture as the API sends it: its components, the groups assessing it and its valid results. */
+export interface MixtureView {
+  id: number;
+  name: string;
+  notes: string;
+  archived: boolean;
+  components: Array<{ id: number; name: string; archived: boolean }>;
+  groupCount: number;
+  validResultCount: number;
+}
+
+/** One worker-shift's mixture index, as computing would write it. */
+export interface MixtureShiftRow {
+  workerId: number;
+  workerCode: string;
+  date: string;
+  index: number;
+  nonDetect: boolean;
+  lowerBound: number;
+  components: NonNullable<ShiftResultDetails['mixture']>['components'];
+  statement: string;
+  flags: string[];
+}
+
+/** A shift left out of the computation, with why. */
+export interface MixtureSkippedShift {
+  workerCode: string;
+  date: string;
+  reason: string;
+  /** Component agents with no valid result on that shift. */
+  missing: string[];
+}
+
+/** What computing a mixture group's results would write, skip and replace (the preview and the answer). */
+export interface MixturePlan {
+  group: { id: number; name: string };
+  mixture: { id: number; name: string; components: string[] };
+  formula: string;
+  source: string;
+  nonDetectRule: string;
+  rows: MixtureShiftRow[];
+  skipped: MixtureSkippedShift[];
+  /** Valid mixture results now in the group: voided ("recomputed") when the new ones are written. */
+  replaces: Array<{ id: number; workerCode: string; date: string; value: number }>;
+}

@@ -77,7 +77,8 @@ export function getAgent(db: Db, organizationId: number, agentId: number): Agent
   return { ...agent, ...row };
 }
 
-function checkAgentNameFree(db: Tx, organizationId: number, name: string, exceptId?: number): void {
+/** 409 when another agent (chemical, noise or mixture) of the organization has this name. */
+export function checkAgentNameFree(db: Tx, organizationId: number, name: string, exceptId?: number): void {
   const clash = sameNameRow(db, agents, organizationId, name, exceptId);
   if (clash !== undefined) throw new Conflict(`An agent named "${name}" already exists in this organization (agent ${clash})`);
 }

@@ -1,14 +1,23 @@
 import { and, asc, count, eq, inArray } from 'drizzle-orm';
 import { agents, exposureUnitLabels, type Agent } from '@schema/agents';
 import { exposureGroups, type ExposureGroup } from '@schema/exposure-groups';
-import { mixtureComponents, type MixtureCreate, type MixtureUpdate } from '@schema/mixtures';
-import { shiftResults, type ShiftResultDetails } from '@schema/shift-results';
+import {
+  mixtureComponents,
+  type MixtureCreate,
+  type MixturePlan,
+  type MixtureShiftRow,
+  type MixtureSkippedShift,
+  type MixtureUpdate,
+  type MixtureView,
+} from '@schema/mixtures';
+import { shiftResults } from '@schema/shift-results';
 import { workers, type Worker } from '@schema/workers';
 import { mixtureIndex } from '@stats/mixture-index';
 import type { Clock } from '../clock';
 import type { Db } from '../db/client';
 import { Conflict, NotFound, Unprocessable } from '../errors';
-import { saveAuditedChange, audit, fieldError, ownedOrFieldError, sameNameRow, type Actor, type Tx } from './changes';
+import { saveAuditedChange, audit, fieldError, ownedOrFieldError, type Actor, type Tx } from './changes';
+import { checkAgentNameFree } from './agents';
 import { effectiveOelOf, findExposureGroup, touchGroupResults } from './exposure-groups';
 import { insertShiftResult, shiftResultWriter } from './shift-results';
 import { isMemberOn } from './workers';
@@ -26,16 +35,6 @@ export const MIXTURE_FORMULA = 'Em = Σ Cᵢ/OELᵢ';
 export const MIXTURE_SOURCE = 'OSHA 29 CFR 1910.1000(d)(2)(i) (additive effects; the same formula as the ACGIH TLV booklet’s appendix on mixtures)';
 /** Reason written on mixture results replaced by a new computation. */
 export const RECOMPUTED_REASON = 'recomputed';
-
-export interface MixtureView {
-  id: number;
-  name: string;
-  notes: string;
-  archived: boolean;
-  components: Array<{ id: number; name: string; archived: boolean }>;
-  groupCount: number;
-  validResultCount: number;
-}
 
 function componentsOf(db: Tx, mixtureId: number): MixtureView['components'] {
   return db
@@ -105,17 +104,12 @@ function checkComponents(db: Tx, organizationId: number, ids: readonly number[])
   });
 }
 
-function checkNameFree(db: Tx, organizationId: number, name: string, exceptId?: number): void {
-  const clash = sameNameRow(db, agents, organizationId, name, exceptId);
-  if (clash !== undefined) throw new Conflict(`An agent named "${name}" already exists in this organization (agent ${clash})`);
-}
-
 /** Defines a mixture: its agent (kind `mixture`) and components, audited. */
 export function createMixture(db: Db, clock: Clock, input: { organizationId: number; actor: Actor; mixture: MixtureCreate }): MixtureView {
   const now = clock.now();
   const stamp = now.toISOString();
   return db.transaction((tx) => {
-    checkNameFree(tx, input.organizationId, input.mixture.name);
+    checkAgentNameFree(tx, input.organizationId, input.mixture.name);
     const components = checkComponents(tx, input.organizationId, input.mixture.componentAgentIds);
     const agent = tx
       .insert(agents)
@@ -165,7 +159,7 @@ export function updateMixture(
     const after: Record<string, unknown> = {};
     const set: Partial<Agent> = {};
     if (input.changes.name !== undefined && input.changes.name !== current.name) {
-      checkNameFree(tx, input.organizationId, input.changes.name, current.id);
+      checkAgentNameFree(tx, input.organizationId, input.changes.name, current.id);
       before.name = current.name;
       after.name = set.name = input.changes.name;
     }
@@ -226,38 +220,6 @@ export function updateMixture(
 }
 
 // ---------------------------------------------------------------- computing the group's results
-
-export interface MixtureShiftRow {
-  workerId: number;
-  workerCode: string;
-  date: string;
-  index: number;
-  nonDetect: boolean;
-  lowerBound: number;
-  components: NonNullable<ShiftResultDetails['mixture']>['components'];
-  statement: string;
-  flags: string[];
-}
-
-export interface MixtureSkippedShift {
-  workerCode: string;
-  date: string;
-  reason: string;
-  /** Component agents with no valid result on that shift. */
-  missing: string[];
-}
-
-export interface MixturePlan {
-  group: { id: number; name: string };
-  mixture: { id: number; name: string; components: string[] };
-  formula: string;
-  source: string;
-  nonDetectRule: string;
-  rows: MixtureShiftRow[];
-  skipped: MixtureSkippedShift[];
-  /** Valid mixture results now in the group: voided ("recomputed") when the new ones are written. */
-  replaces: Array<{ id: number; workerCode: string; date: string; value: number }>;
-}
 
 export const NON_DETECT_RULE =
   'A non-detect component counts at its detection limit (the upper bound, the cautious choice) and the record keeps the lower bound with it at 0; when every component is a non-detect the index is a non-detect below Σ LOD/OEL.';

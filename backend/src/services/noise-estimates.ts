@@ -274,6 +274,12 @@ function snapshotOf(view: NoiseEstimateView) {
   };
 }
 
+/** The estimate row's own columns from its inputs (tasks and measurements are rows of their own). */
+function estimateColumns(fields: ReturnType<typeof auditInputs>) {
+  const { title, strategy, instrument, effectiveHours, groupSize, notes } = fields;
+  return { title, strategy, instrument, effectiveHours, groupSize, notes };
+}
+
 /** Creates an estimate with its tasks and measurements in one transaction (audited). */
 export function createNoiseEstimate(
   db: Db,
@@ -290,12 +296,7 @@ export function createNoiseEstimate(
       .values({
         organizationId: input.organizationId,
         exposureGroupId: input.groupId,
-        title: fields.title,
-        strategy: fields.strategy,
-        instrument: fields.instrument,
-        effectiveHours: fields.effectiveHours,
-        groupSize: fields.groupSize,
-        notes: fields.notes,
+        ...estimateColumns(fields),
         createdByUserId: input.actor?.id ?? null,
         createdAt: now.toISOString(),
         updatedAt: now.toISOString(),
@@ -328,15 +329,7 @@ export function replaceNoiseEstimate(
     checkWorkers(tx, input.organizationId, input.estimate);
     const fields = auditInputs(input.estimate);
     tx.update(noiseEstimates)
-      .set({
-        title: fields.title,
-        strategy: fields.strategy,
-        instrument: fields.instrument,
-        effectiveHours: fields.effectiveHours,
-        groupSize: fields.groupSize,
-        notes: fields.notes,
-        updatedAt: now.toISOString(),
-      })
+      .set({ ...estimateColumns(fields), updatedAt: now.toISOString() })
       .where(eq(noiseEstimates.id, input.estimateId))
       .run();
     // The rows are the estimate's own inputs; the audit event keeps the previous ones in full.

@@ -1,40 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { MixtureCreate, MixtureUpdate } from '@schema/mixtures';
+import type { MixtureCreate, MixturePlan, MixtureUpdate, MixtureView } from '@schema/mixtures';
 import { api, apiPath } from '@frontend/lib/api-client';
 import { setArchived, useOrganizationMutation } from '@frontend/lib/org-mutation';
 import { orgKeys, resultChangeKeys } from '@frontend/lib/query-keys';
 
 /* Mixtures of agents with similar effects, and the mixture index results of a mixture group. */
-
-export interface MixtureView {
-  id: number;
-  name: string;
-  notes: string;
-  archived: boolean;
-  components: Array<{ id: number; name: string; archived: boolean }>;
-  groupCount: number;
-  validResultCount: number;
-}
-
-export interface MixturePlan {
-  group: { id: number; name: string };
-  mixture: { id: number; name: string; components: string[] };
-  formula: string;
-  source: string;
-  nonDetectRule: string;
-  rows: Array<{
-    workerId: number;
-    workerCode: string;
-    date: string;
-    index: number;
-    nonDetect: boolean;
-    lowerBound: number;
-    statement: string;
-    flags: string[];
-  }>;
-  skipped: Array<{ workerCode: string; date: string; reason: string; missing: string[] }>;
-  replaces: Array<{ id: number; workerCode: string; date: string; value: number }>;
-}
 
 const mixtureKeys = (organizationId: string) => [...orgKeys.all(organizationId), 'mixtures'] as const;
 const base = (organizationId: string) => apiPath('/api/orgs', organizationId);

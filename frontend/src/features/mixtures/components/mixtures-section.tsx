@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import { mixtureCreate, type MixtureCreate } from '@schema/mixtures';
+import { mixtureCreate, type MixtureCreate, type MixtureView } from '@schema/mixtures';
 import { Button } from '@frontend/components/button';
 import { TextAreaField, TextField } from '@frontend/components/form-field';
 import { Notice } from '@frontend/components/notice';
@@ -7,7 +7,7 @@ import { QueryState } from '@frontend/components/query-state';
 import { RecordActions } from '@frontend/components/record-actions';
 import { ArchivedBadge } from '@frontend/components/status-badge';
 import { isApiError } from '@frontend/lib/api-client';
-import { useArchiveMixture, useCreateMixture, useMixtures, useUpdateMixture, type MixtureView } from '../api/mixtures';
+import { useArchiveMixture, useCreateMixture, useMixtures, useUpdateMixture } from '../api/mixtures';
 
 type Chemical = { id: number; name: string };
 

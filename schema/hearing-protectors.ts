@@ -2,7 +2,8 @@ import { sql } from 'drizzle-orm';
 import { check, foreignKey, index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { createInsertSchema, createSelectSchema } from 'drizzle-zod';
 import { z } from 'zod';
-import { hearingProtectorTypes, RATING_LIMITS } from '../stats/hearing-protector-types';
+import type { ProtectionBands, ProtectionVerdict } from '../stats/hearing-protector-en458';
+import { hearingProtectorTypes, RATING_LIMITS, type LevelAtEar } from '../stats/hearing-protector-types';
 import { archived, id, timestamp, timestamps } from './columns';
 import { exposureGroups } from './exposure-groups';
 import { organizationReference } from './organizations';
@@ -163,3 +164,22 @@ export type HearingProtectorCreate = z.infer<typeof hearingProtectorCreate>;
 export type HearingProtectorUpdate = z.infer<typeof hearingProtectorUpdate>;
 export type ProtectorAdequacyQuery = z.infer<typeof protectorAdequacyQuery>;
 export type ProtectorSettingsValues = z.infer<typeof protectorSettingsUpdate>;
+
+// ---------------------------------------------------------------- over the wire (backend/src/services/hearing-protectors.ts)
+
+/** A protector as the API lists it: its rating warnings and how many groups use it. */
+export type HearingProtectorView = Omit<HearingProtector, 'organizationId'> & { warnings: string[]; groupCount: number };
+
+/** One method's answer for one protector: an estimate with its verdict, or why the method does not apply. */
+export type ProtectorEstimate = (LevelAtEar & { verdict: ProtectionVerdict; unavailable: null }) | { method: string; source: string; unavailable: string };
+
+/** GET …/exposure-groups/:groupId/protector-adequacy: the level used, the bands, and each protector's (and pair's) estimates. */
+export interface ProtectorAdequacy {
+  group: { id: number; name: string; oelUnit: string; noiseCriteriaSet: string | null; actionLevel: number | null };
+  level: { source: 'p95' | 'typed'; laDb: number; lcDb: number | null; assumedCMinusADb: number; statement: string };
+  bands: ProtectionBands & { statement: string; source: string };
+  protectors: Array<{ protector: HearingProtectorView; estimates: ProtectorEstimate[] }>;
+  /** Each earplug × earmuff pair in use, as if worn together (dual protection). */
+  combinations: Array<{ plug: HearingProtectorView; muff: HearingProtectorView; estimates: ProtectorEstimate[] }>;
+  cautions: string[];
+}

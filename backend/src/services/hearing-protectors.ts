@@ -8,10 +8,13 @@ import {
   type HearingProtectorUpdate,
   type ProtectorAdequacyQuery,
   type ProtectorSettingsValues,
+  type HearingProtectorView,
+  type ProtectorAdequacy,
+  type ProtectorEstimate,
 } from '@schema/hearing-protectors';
 import { shiftResults } from '@schema/shift-results';
 import { assessGroup } from '@stats/assess-group';
-import { en458HmlLevelAtEar, en458SnrLevelAtEar, protectionVerdict, type ProtectionBands, type ProtectionVerdict } from '@stats/hearing-protector-en458';
+import { en458HmlLevelAtEar, en458SnrLevelAtEar, protectionVerdict, type ProtectionBands } from '@stats/hearing-protector-en458';
 import { nioshLevelAtEar } from '@stats/hearing-protector-niosh';
 import { oshaAppendixBLevelAtEar, oshaDeratedLevelAtEar, oshaDualLevelAtEar } from '@stats/hearing-protector-osha';
 import { ratingWarnings, type LevelAtEar, type NoiseAtWorkplace } from '@stats/hearing-protector-types';
@@ -31,7 +34,6 @@ import { organizationSettingsOf, saveOrganizationSettings } from './organization
  */
 
 /** A protector as lists show it: with rating warnings (H ≥ M ≥ L) and the number of groups using it. */
-export type HearingProtectorView = Omit<HearingProtector, 'organizationId'> & { warnings: string[]; groupCount: number };
 
 function toView(row: HearingProtector, groupCount: number): HearingProtectorView {
   const { organizationId: _organizationId, ...protector } = row;
@@ -254,19 +256,6 @@ export function removeGroupProtector(
 }
 
 // ---------------------------------------------------------------- adequacy
-
-/** One method's answer for one protector: an estimate with its verdict, or why the method does not apply. */
-export type ProtectorEstimate = (LevelAtEar & { verdict: ProtectionVerdict; unavailable: null }) | { method: string; source: string; unavailable: string };
-
-export interface ProtectorAdequacy {
-  group: { id: number; name: string; oelUnit: string; noiseCriteriaSet: string | null; actionLevel: number | null };
-  level: { source: 'p95' | 'typed'; laDb: number; lcDb: number | null; assumedCMinusADb: number; statement: string };
-  bands: ProtectionBands & { statement: string; source: string };
-  protectors: Array<{ protector: HearingProtectorView; estimates: ProtectorEstimate[] }>;
-  /** Each earplug × earmuff pair in use, as if worn together (dual protection). */
-  combinations: Array<{ plug: HearingProtectorView; muff: HearingProtectorView; estimates: ProtectorEstimate[] }>;
-  cautions: string[];
-}
 
 export const PROTECTOR_CAUTIONS = Object.freeze([
   'These are estimates from laboratory ratings: real-world protection is often much lower, depends on fit, training and wearing time, and is best checked by individual fit testing.',

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { HearingProtector, HearingProtectorCreate, ProtectorSettingsValues } from '@schema/hearing-protectors';
+import type { HearingProtectorCreate, HearingProtectorView, ProtectorAdequacy, ProtectorSettingsValues } from '@schema/hearing-protectors';
 import { api, apiPath } from '@frontend/lib/api-client';
 import { setArchived, useOrganizationMutation } from '@frontend/lib/org-mutation';
 import { orgKeys } from '@frontend/lib/query-keys';
@@ -8,8 +8,6 @@ import { orgKeys } from '@frontend/lib/query-keys';
  * Hearing protectors: the organization's list (GET/POST /hearing-protectors, archive), the protectors
  * in use in a noise group, their adequacy by method, and the verdict settings.
  */
-
-export type HearingProtectorView = Omit<HearingProtector, 'organizationId'> & { warnings: string[]; groupCount: number };
 
 export const protectorKeys = {
   all: (organizationId: string) => [...orgKeys.all(organizationId), 'hearing-protectors'] as const,
@@ -83,29 +81,6 @@ export function useRemoveGroupProtector(organizationId: string, groupId: number)
     (protectorId: number) => api.delete<HearingProtectorView[]>(`${base(organizationId)}/exposure-groups/${groupId}/protectors/${protectorId}`),
     [protectorKeys.all],
   );
-}
-
-export type ProtectionVerdict = 'not-enough' | 'acceptable' | 'good' | 'over-protection';
-export type ProtectorEstimate =
-  | {
-      method: string;
-      source: string;
-      levelAtEarDb: number;
-      attenuationDb: number;
-      working: string;
-      assumptions: string[];
-      verdict: ProtectionVerdict;
-      unavailable: null;
-    }
-  | { method: string; source: string; unavailable: string };
-
-export interface ProtectorAdequacy {
-  level: { source: 'p95' | 'typed'; laDb: number; lcDb: number | null; assumedCMinusADb: number; statement: string };
-  bands: { actionLevelDb: number; statement: string; source: string };
-  protectors: Array<{ protector: HearingProtectorView; estimates: ProtectorEstimate[] }>;
-  /** Each earplug × earmuff pair in use, as if worn together. */
-  combinations: Array<{ plug: HearingProtectorView; muff: HearingProtectorView; estimates: ProtectorEstimate[] }>;
-  cautions: string[];
 }
 
 /** GET …/exposure-groups/:groupId/protector-adequacy?level=p95|typed&la&lc&assumedCMinusA (org:read). */

@@ -2,15 +2,9 @@ import { useState, type FormEvent, type ReactNode } from 'react';
 import { Button } from '@frontend/components/button';
 import { SelectField, TextField } from '@frontend/components/form-field';
 import { Notice } from '@frontend/components/notice';
+import type { ProtectorAdequacy, ProtectorEstimate } from '@schema/hearing-protectors';
 import { isApiError } from '@frontend/lib/api-client';
-import {
-  useAddGroupProtector,
-  useHearingProtectors,
-  useProtectorAdequacy,
-  useRemoveGroupProtector,
-  type ProtectorAdequacy,
-  type ProtectorEstimate,
-} from '../api/hearing-protectors';
+import { useAddGroupProtector, useHearingProtectors, useProtectorAdequacy, useRemoveGroupProtector } from '../api/hearing-protectors';
 import { methodLabels, VerdictBadge } from './verdict-text';
 
 /**

@@ -3,7 +3,8 @@ import { hearingProtectorCreate, hearingProtectorTypeLabels, hearingProtectorTyp
 import { FormActions } from '@frontend/components/form-actions';
 import { SelectField, TextAreaField, TextField } from '@frontend/components/form-field';
 import { isApiError } from '@frontend/lib/api-client';
-import { useCreateHearingProtector, type HearingProtectorView } from '../api/hearing-protectors';
+import type { HearingProtectorView } from '@schema/hearing-protectors';
+import { useCreateHearingProtector } from '../api/hearing-protectors';
 
 const ratingFields = [
   { key: 'nrr', label: 'NRR, dB', hint: 'US Noise Reduction Rating, 0–45.' },

@@ -1,6 +1,7 @@
 import { hearingProtectorTypeLabels } from '@schema/hearing-protectors';
 import { ArchiveToggle } from '@frontend/components/archive-toggle';
-import { useArchiveHearingProtector, type HearingProtectorView } from '../api/hearing-protectors';
+import type { HearingProtectorView } from '@schema/hearing-protectors';
+import { useArchiveHearingProtector } from '../api/hearing-protectors';
 
 const rating = (value: number | null) => (value === null ? '—' : String(value));
 

@@ -1,4 +1,4 @@
-import type { ProtectionVerdict } from '../api/hearing-protectors';
+import type { ProtectionVerdict } from '@stats/hearing-protector-en458';
 
 /** Our words for the EN 458 bands, always shown as text beside the colour (never colour alone). */
 export const verdictLabels: Record<ProtectionVerdict, string> = {

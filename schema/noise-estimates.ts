@@ -256,3 +256,16 @@ export const noiseEstimateView = z.object({
   figuresError: z.string().nullable(),
 });
 export type NoiseEstimateView = z.infer<typeof noiseEstimateView>;
+
+/** One accepted noise-log day of a group, with the reviewed LAeq its log gave (GET …/noise-log-days). */
+export interface NoiseLogDay {
+  shiftResultId: number;
+  noiseLogId: number | null;
+  measuredOn: string;
+  workerId: number;
+  workerCode: string;
+  /** Reviewed LAeq over the logged run, dB. */
+  laeqDb: number;
+  /** Logged run time, minutes. */
+  durationMinutes: number | null;
+}

@@ -8,6 +8,7 @@ import {
   type NoiseEstimateFigures,
   type NoiseEstimateParsed,
   type NoiseEstimateView,
+  type NoiseLogDay,
   type NoiseMeasurementInput,
 } from '@schema/noise-estimates';
 import { shiftResults } from '@schema/shift-results';
@@ -377,17 +378,6 @@ export function setNoiseEstimateArchived(
 }
 
 /** One accepted noise-log day of the group, offered as a full-day measurement. */
-export interface NoiseLogDay {
-  shiftResultId: number;
-  noiseLogId: number | null;
-  measuredOn: string;
-  workerId: number;
-  workerCode: string;
-  /** Reviewed LAeq over the logged run, dB. */
-  laeqDb: number;
-  /** Logged run time, minutes. */
-  durationMinutes: number | null;
-}
 
 /**
  * The group's valid shift results that came from accepted noise logs, with the reviewed LAeq each

@@ -1,17 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { NoiseLogDay } from '@schema/noise-estimates';
 import { api, apiPath } from '@frontend/lib/api-client';
 import { orgKeys } from '@frontend/lib/query-keys';
-
-/** One accepted noise-log day of the group (backend/src/services/noise-estimates.ts `NoiseLogDay`). */
-export interface NoiseLogDay {
-  shiftResultId: number;
-  noiseLogId: number | null;
-  measuredOn: string;
-  workerId: number;
-  workerCode: string;
-  laeqDb: number;
-  durationMinutes: number | null;
-}
 
 /** GET /api/orgs/:orgId/exposure-groups/:groupId/noise-log-days — accepted noise-log days with their reviewed LAeq. */
 export function getNoiseLogDays(organizationId: string, groupId: number, signal?: AbortSignal): Promise<NoiseLogDay[]> {
